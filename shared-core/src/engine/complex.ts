@@ -21,19 +21,24 @@ export const cscale = (a: Complex, k: number): Complex => ({ re: a.re * k, im: a
 export const cabs = (a: Complex): number => Math.hypot(a.re, a.im);
 
 /**
- * tanh(x + jy) = (sinh 2x + j sin 2y) / (cosh 2x + cos 2y).
- * For x = 0 this is exactly j·tan y.
+ * tanh(x + jy) = (sinh x·cosh x + j·sin y·cos y) / (sinh²x + cos²y).
+ * This form has no cancellation near the poles (x = 0, y → π/2 + kπ), unlike the
+ * (sinh 2x + j sin 2y)/(cosh 2x + cos 2y) form. For x = 0 it is exactly j·tan y.
  */
 export function ctanh(z: Complex): Complex {
-  const d = Math.cosh(2 * z.re) + Math.cos(2 * z.im);
-  return { re: Math.sinh(2 * z.re) / d, im: Math.sin(2 * z.im) / d };
+  const sh = Math.sinh(z.re);
+  const c = Math.cos(z.im);
+  const d = sh * sh + c * c;
+  return { re: (sh * Math.cosh(z.re)) / d, im: (Math.sin(z.im) * c) / d };
 }
 
 /**
- * coth(x + jy) = (sinh 2x − j sin 2y) / (cosh 2x − cos 2y).
- * For x = 0 this is exactly −j·cot y.
+ * coth(x + jy) = (sinh x·cosh x − j·sin y·cos y) / (sinh²x + sin²y), cancellation-free near its poles.
+ * For x = 0 it is exactly −j·cot y.
  */
 export function ccoth(z: Complex): Complex {
-  const d = Math.cosh(2 * z.re) - Math.cos(2 * z.im);
-  return { re: Math.sinh(2 * z.re) / d, im: -Math.sin(2 * z.im) / d };
+  const sh = Math.sinh(z.re);
+  const s = Math.sin(z.im);
+  const d = sh * sh + s * s;
+  return { re: (sh * Math.cosh(z.re)) / d, im: -(s * Math.cos(z.im)) / d };
 }
