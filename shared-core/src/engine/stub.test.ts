@@ -121,6 +121,9 @@ describe('stub input impedance on a lossy line', () => {
     const alpha = line(f).alpha;
     expect(a.resistance / (Z0 / (alpha * l))).toBeCloseTo(1, 4);
     expect(Math.abs(a.reactance)).toBeLessThan(1e-6 * a.resistance);
+    expect(a.behaviour).toBe('resonant');
+    expect(a.inductance).toBeNull();
+    expect(a.capacitance).toBeNull();
   });
 
   it('more loss lowers the peak |Zin| at resonance', () => {

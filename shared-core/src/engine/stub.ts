@@ -44,6 +44,7 @@ export function electricalLength(line: LineAtFrequency, lengthM: number, frequen
   return phaseConstant(line.epsEff, frequencyHz) * lengthM;
 }
 
+/** 'resonant' when the stub sits on a resonance, or so near one that |X| ≤ R (Q below 1). */
 export type Behaviour = 'inductive' | 'capacitive' | 'resonant';
 
 export interface StubAnalysis {
@@ -57,9 +58,9 @@ export interface StubAnalysis {
   reactance: number;
   /** Re(Zin): the series loss resistance, Ω. */
   resistance: number;
-  /** Equivalent inductance X/ω, H, when X > 0; else null. */
+  /** Equivalent inductance X/ω, H, when X > 0 and |X| > R; else null. */
   inductance: number | null;
-  /** Equivalent capacitance −1/(ωX), F, when X < 0; else null. */
+  /** Equivalent capacitance −1/(ωX), F, when X < 0 and |X| > R; else null. */
   capacitance: number | null;
   /** Electrical length βl in degrees. */
   electricalDeg: number;
@@ -90,7 +91,9 @@ export function analyseStub(kind: StubKind, lineModel: LineModel, lengthM: numbe
   }
   const reactance = zin.im;
   const omega = 2 * Math.PI * frequencyHz;
-  const finite = Number.isFinite(reactance) && !onResonance && reactance !== 0;
+  // At or very near a resonance of a lossy stub |X| ≤ R: the stub is then more resistor than reactor
+  // (its Q as an L or C is below 1) and no equivalent L or C is reported.
+  const finite = Number.isFinite(reactance) && !onResonance && reactance !== 0 && Math.abs(reactance) > Math.abs(zin.re);
   return {
     kind,
     lengthM,
