@@ -1,0 +1,152 @@
+/**
+ * Line types as table entries: each names its keys and builds an engine LineModel from evaluated
+ * values (and its substrate, when it needs one). Adding a line type means adding an entry here.
+ * Builders throw RangeError for impossible geometry; the caller reports it as a `range` diagnostic.
+ */
+import {
+  coaxLine, coaxNotes, coaxZ0, idealLine, microstripAt, microstripLine, microstripStatic, microstripWidthForZ0,
+  type LineModel, type ValidityNote,
+} from '../../engine/index.js';
+import type { KeySpec, KeyTable } from '../schema.js';
+import { si, tol, type ItemValues } from './items.js';
+
+export interface SubstrateValue {
+  dk: number;
+  dkTol: number;
+  df: number;
+  heightM: number;
+  heightTol: number;
+  copperM: number;
+}
+
+export interface LineBuild {
+  model: LineModel;
+  /** Models used, for hovers and reports. */
+  modelName: string;
+  /** Static (or dispersion-free) Z0 and εeff. */
+  z0: number;
+  epsEff: number;
+  widthM: number | null;
+  /** A width the sheet asked to synthesize. */
+  synthesizedWidthM: number | null;
+  /** Validity notes for use at frequency f (static notes included). */
+  notes(frequencyHz: number): ValidityNote[];
+  /** Line models at every corner of the given tolerances (empty when there are none). */
+  corners(): LineModel[];
+}
+
+export interface LineTypeSpec {
+  keys: KeyTable;
+  needsSubstrate: boolean;
+  build(values: ItemValues, substrate: SubstrateValue | null): LineBuild;
+}
+
+const AT: KeySpec = { value: { type: 'quantity', quantity: 'frequency' }, doc: 'frequency for dispersion, wavelength and loss' };
+const DF: KeySpec = { value: { type: 'quantity', quantity: 'dimensionless' }, doc: 'loss tangent of the fill' };
+
+/** Every combination of nominal ± tolerance for the toleranced parameters (2^k corners). */
+export function toleranceCorners(params: { nominal: number; tol: number }[]): number[][] {
+  const varying = params.map((p) => (p.tol > 0 ? [p.nominal - p.tol, p.nominal + p.tol] : [p.nominal]));
+  if (varying.every((v) => v.length === 1)) return [];
+  return varying.reduce<number[][]>((acc, options) => acc.flatMap((c) => options.map((o) => [...c, o])), [[]]);
+}
+
+const microstrip: LineTypeSpec = {
+  needsSubstrate: true,
+  keys: {
+    keys: {
+      width: { value: { type: 'quantity', quantity: 'length', tolerance: true }, doc: 'strip width (analysis)' },
+      z0: { value: { type: 'quantity', quantity: 'impedance' }, doc: 'target impedance: the width is synthesized' },
+      at: AT,
+    },
+    required: [['width', 'z0']],
+    exclusive: [['width', 'z0']],
+  },
+  build(values, sub) {
+    const s = sub!;
+    const thicknessM = s.copperM;
+    const target = si(values, 'z0');
+    const widthM = target !== undefined
+      ? microstripWidthForZ0({ z0: target, heightM: s.heightM, dk: s.dk, thicknessM }).widthM
+      : si(values, 'width')!;
+    const geometry = { widthM, heightM: s.heightM, dk: s.dk, thicknessM };
+    const stat = microstripStatic(geometry);
+    return {
+      model: microstripLine({ ...geometry, df: s.df }),
+      modelName: 'microstrip: Hammerstad–Jensen 1980 (Z0, εeff, strip thickness), Kirschning–Jansen 1982 (εeff(f)), Jansen–Kirschning 1983 (Z0(f)); dielectric loss only',
+      z0: stat.z0,
+      epsEff: stat.epsEff,
+      widthM,
+      synthesizedWidthM: target !== undefined ? widthM : null,
+      notes: (f) => (f > 0 ? microstripAt(geometry, f).notes : stat.notes),
+      corners: () => toleranceCorners([
+        { nominal: s.dk, tol: s.dkTol },
+        { nominal: s.heightM, tol: s.heightTol },
+        { nominal: widthM, tol: tol(values, 'width') },
+      ]).map(([dk, h, w]) => microstripLine({ widthM: w!, heightM: h!, dk: dk!, thicknessM, df: s.df })),
+    };
+  },
+};
+
+const ideal: LineTypeSpec = {
+  needsSubstrate: false,
+  keys: {
+    keys: {
+      z0: { value: { type: 'quantity', quantity: 'impedance' }, doc: 'characteristic impedance' },
+      dk: { value: { type: 'quantity', quantity: 'dimensionless', tolerance: true }, doc: 'effective permittivity of the line', aliases: ['er'] },
+      velocity: { value: { type: 'quantity', quantity: 'dimensionless' }, doc: 'velocity factor v/c (0 … 1]' },
+      df: DF,
+      at: AT,
+    },
+    required: [['z0']],
+    exclusive: [['dk', 'velocity']],
+  },
+  build(values) {
+    const z0 = si(values, 'z0')!;
+    const df = si(values, 'df') ?? 0;
+    const velocityFactor = si(values, 'velocity');
+    const dk = si(values, 'dk');
+    const model = idealLine({ z0, epsEff: dk, velocityFactor, df });
+    return {
+      model,
+      modelName: 'ideal TEM line (no dispersion)',
+      z0,
+      epsEff: model(0).epsEff,
+      widthM: null,
+      synthesizedWidthM: null,
+      notes: () => [],
+      corners: () => toleranceCorners([{ nominal: dk ?? 1, tol: tol(values, 'dk') }]).map(([e]) => idealLine({ z0, epsEff: e, df })),
+    };
+  },
+};
+
+const coax: LineTypeSpec = {
+  needsSubstrate: false,
+  keys: {
+    keys: {
+      inner: { value: { type: 'quantity', quantity: 'length' }, doc: 'outer diameter of the inner conductor' },
+      outer: { value: { type: 'quantity', quantity: 'length' }, doc: 'inner diameter of the outer conductor' },
+      dk: { value: { type: 'quantity', quantity: 'dimensionless', tolerance: true }, doc: 'relative permittivity of the fill (1 for air)', aliases: ['er'] },
+      df: DF,
+      at: AT,
+    },
+    required: [['inner'], ['outer']],
+    exclusive: [],
+  },
+  build(values) {
+    const spec = { innerDiameterM: si(values, 'inner')!, outerDiameterM: si(values, 'outer')!, dk: si(values, 'dk') ?? 1, df: si(values, 'df') ?? 0 };
+    return {
+      model: coaxLine(spec),
+      modelName: 'coaxial line (exact TEM)',
+      z0: coaxZ0(spec.innerDiameterM, spec.outerDiameterM, spec.dk),
+      epsEff: spec.dk,
+      widthM: null,
+      synthesizedWidthM: null,
+      notes: (f) => coaxNotes(spec, f),
+      corners: () => toleranceCorners([{ nominal: spec.dk, tol: tol(values, 'dk') }]).map(([dk]) => coaxLine({ ...spec, dk: dk! })),
+    };
+  },
+};
+
+/** The line-type table. */
+export const LINE_TYPES: Record<string, LineTypeSpec> = { microstrip, ideal, coax };

@@ -1,0 +1,140 @@
+/**
+ * Evaluation of `stub` declarations: analysis of a given length or synthesis of the length for a
+ * target L, C, X or angle; nearest resonances; band behaviour; and the resonance checks
+ * (near-resonance, resonance-in-band, detuned), taken at the worst tolerance corner.
+ */
+import {
+  analyseBand, analyseStub, nearestResonances, resonancesInRange, synthesizeStub,
+  type LineModel, type Resonance, type StubKind, type StubTarget,
+} from '../../engine/index.js';
+import { formatQuantity } from '../format.js';
+import type { LocalDiagnostic, ParsedDeclaration } from '../parse/lineParser.js';
+import { STUB_KEYS, STUB_KINDS, STUB_TARGETS } from '../schema.js';
+import { finish, lookup, validityDiagnostics, type Resolved } from './declarations.js';
+import { readItems, si, tol, type ItemValues } from './items.js';
+import type { Outcome } from './outcome.js';
+import { ValueReader, type SheetScope } from './values.js';
+
+const quarterName = (n: number) => (n % 2 === 0 ? `${n / 2 === 1 ? '' : n / 2}λ/2` : `${n === 1 ? '' : n}λ/4`);
+const describe = (r: Resonance) => `${r.type} resonance at ${formatQuantity(r.frequencyHz, 'frequency')} (${quarterName(r.quarterWaves)})`;
+
+function targetOf(values: ItemValues): StubTarget | null {
+  const get = (k: string) => si(values, k);
+  if (get('inductance') !== undefined) return { kind: 'inductance', henries: get('inductance')! };
+  if (get('capacitance') !== undefined) return { kind: 'capacitance', farads: get('capacitance')! };
+  if (get('reactance') !== undefined) return { kind: 'reactance', ohms: get('reactance')! };
+  if (get('angle') !== undefined) return { kind: 'angle', radians: get('angle')! };
+  return null;
+}
+
+export function evalStub(decl: ParsedDeclaration, scope: SheetScope, resolved: Resolved, marginPct: number): Outcome {
+  const reader = new ValueReader(scope);
+  const head = decl.head;
+  if (!head) return finish(reader);
+  if (!(STUB_KINDS as readonly string[]).includes(head.word.text)) {
+    reader.error(head.word.start, head.word.end, 'syntax', `a stub is "short on LINE" or "open on LINE", not "${head.word.text}"`);
+    return finish(reader);
+  }
+  const kind = head.word.text as StubKind;
+  const values = readItems(reader, STUB_KEYS, decl.items, 'stub', decl.name);
+  if (!head.on) {
+    reader.error(head.word.start, head.word.end, 'missing', `say which line the stub is made of: "${kind} on LINE"`);
+    return finish(reader);
+  }
+  const line = lookup(reader, head.on, 'line', resolved.line(head.on.text))?.line;
+  const f = si(values, 'at');
+  if (!line || f === undefined) return finish(reader);
+  const atItem = values.get('at')!.item;
+  if (!(f > 0)) {
+    reader.error(atItem.value!.start, atItem.value!.end, 'range', 'the design frequency must be positive');
+    return finish(reader);
+  }
+  const target = targetOf(values);
+  const lengthKey = STUB_TARGETS.find((k) => values.has(k));
+  if (!lengthKey) return finish(reader);
+  const lengthItem = values.get(lengthKey)!;
+  const valueSpan = lengthItem.item.value!;
+
+  let lengthM: number;
+  if (target) {
+    try {
+      lengthM = synthesizeStub(kind, line.model, target, f, values.get('solution')?.count ?? 1).lengthM;
+    } catch (e) {
+      if (!(e instanceof RangeError)) throw e;
+      reader.error(valueSpan.start, valueSpan.end, 'range', e.message);
+      return finish(reader);
+    }
+  } else {
+    lengthM = si(values, 'length')!;
+    if (!(lengthM > 0)) {
+      reader.error(valueSpan.start, valueSpan.end, 'range', 'a stub length must be positive');
+      return finish(reader);
+    }
+  }
+  const a = analyseStub(kind, line.model, lengthM, f);
+  const near = nearestResonances(kind, line.model, lengthM, f);
+  const finite = (x: number) => (Number.isFinite(x) ? x : null);
+  const results: Outcome['results'] = {
+    length_m: lengthM, frequency_hz: f, electrical_deg: a.electricalDeg, wavelength_fraction: a.wavelengthFraction,
+    reactance_ohm: finite(a.reactance), resistance_ohm: finite(a.resistance), inductance_h: a.inductance, capacitance_f: a.capacitance,
+    behaviour: a.behaviour, resonance_below_hz: near.below?.frequencyHz ?? null, resonance_above_hz: near.above.frequencyHz,
+    resonance_margin_pct: near.marginPct,
+  };
+  const lc = a.inductance !== null ? `≈ ${formatQuantity(a.inductance, 'inductance')}` : a.capacitance !== null ? `≈ ${formatQuantity(a.capacitance, 'capacitance')}` : 'neither an L nor a C here';
+  const x = Math.abs(a.reactance) < 1e-9 * Math.max(1, Math.abs(a.resistance)) ? 0 : a.reactance;
+  const details = [
+    `length ${formatQuantity(lengthM, 'length')}${target ? ' (synthesized)' : ''}; θ ${a.electricalDeg.toFixed(1)}° = ${a.wavelengthFraction.toFixed(4)} λg at ${formatQuantity(f, 'frequency')}`,
+    `Zin ${formatQuantity(a.resistance, 'resistance')} ${x >= 0 ? '+' : '−'} j${formatQuantity(Math.abs(x), 'impedance')}: ${a.behaviour}, ${lc}`,
+    `nearest resonances: below ${near.below ? describe(near.below) : 'none'}; above ${describe(near.above)}; margin ${near.marginPct.toFixed(1)} %`,
+  ];
+
+  // Tolerance corners: every line corner × length ± tolerance (the nominal case included).
+  const lengthTol = target ? 0 : tol(values, 'length');
+  const models: LineModel[] = [line.model, ...line.corners()];
+  const lengths = lengthTol > 0 ? [lengthM, lengthM - lengthTol, lengthM + lengthTol] : [lengthM];
+  const corners = models.flatMap((m) => lengths.filter((l) => l > 0).map((l) => ({ m, l })));
+  const margins = corners.map(({ m, l }) => ({ ...nearestResonances(kind, m, l, f), l }));
+  const worst = margins.reduce((w, c) => (c.marginPct < w.marginPct ? c : w));
+  const best = margins.reduce((w, c) => (c.marginPct > w.marginPct ? c : w));
+  const toleranced = corners.length > 1;
+  if (toleranced) details.push(`tolerance corners (${corners.length}): margin ${worst.marginPct.toFixed(1)} … ${best.marginPct.toFixed(1)} %`);
+
+  const diagnostics: LocalDiagnostic[] = [...validityDiagnostics(line, f, atItem.value!)];
+  const resonant = values.has('resonant');
+  const related = [{ name: head.on.text, message: `the line ${head.on.text} sets Z0 and εeff` }];
+  const cornerNote = toleranced ? ' at the worst tolerance corner' : '';
+  if (!resonant && worst.marginPct < marginPct) {
+    diagnostics.push({
+      start: valueSpan.start, end: valueSpan.end, severity: 'warning', code: 'near-resonance', related,
+      message: `${decl.name.text} is ${worst.marginPct.toFixed(1)} % from its ${describe(worst.nearest)}${cornerNote}, inside the ${marginPct} % margin: it no longer acts as a clean ${a.behaviour === 'capacitive' ? 'C' : 'L'}. Shorten or lengthen it, or mark it "resonant" if intended`,
+    });
+  }
+  if (resonant && best.marginPct > marginPct) {
+    diagnostics.push({
+      start: valueSpan.start, end: valueSpan.end, severity: 'warning', code: 'detuned', related,
+      message: `${decl.name.text} is marked resonant but its nearest resonance is ${best.marginPct.toFixed(1)} % away${cornerNote} (${describe(best.nearest)}), outside the ${marginPct} % margin: retune the length`,
+    });
+  }
+  const band = values.get('band')?.range;
+  if (band) {
+    const b = analyseBand(kind, line.model, lengthM, band[0], band[1]);
+    Object.assign(results, { band_min: b.min, band_max: b.max, band_spread_pct: b.spreadPct });
+    if (b.quantity && b.spreadPct !== null) {
+      details.push(`band ${formatQuantity(band[0], 'frequency')} … ${formatQuantity(band[1], 'frequency')}: ${b.quantity === 'inductance' ? 'L' : 'C'} ${formatQuantity(b.min, b.quantity)} … ${formatQuantity(b.max, b.quantity)} (spread ${b.spreadPct.toFixed(1)} %)`);
+    }
+    const lo = band[0] * (1 - marginPct / 100);
+    const hi = band[1] * (1 + marginPct / 100);
+    const inBand = corners.flatMap(({ m, l }) => resonancesInRange(kind, m, l, lo, hi));
+    if (inBand.length > 0) {
+      const r = inBand.reduce((x, y) => (Math.abs(y.frequencyHz - f) < Math.abs(x.frequencyHz - f) ? y : x));
+      const bandSpan = values.get('band')!.item.value!;
+      diagnostics.push({
+        start: bandSpan.start, end: bandSpan.end, severity: 'warning', code: 'resonance-in-band', related,
+        message: `${describe(r)} falls inside the band widened by the ${marginPct} % margin (${formatQuantity(lo, 'frequency')} … ${formatQuantity(hi, 'frequency')})${cornerNote}: the stub does not act as an L or C across the band`,
+      });
+    }
+  }
+  details.push(`line ${head.on.text}: ${line.modelName}`);
+  const synthesized = target ? [{ key: 'length', valueSI: lengthM, start: lengthItem.item.span.start, end: lengthItem.item.span.end }] : [];
+  return finish(reader, { results, details, synthesized, diagnostics });
+}
