@@ -20,7 +20,7 @@ export const DEFAULT_MARGIN_PCT = 10;
 interface CachedOutcome {
   outcome: Outcome;
   stamp: number;
-  /** Stamp of every name read at evaluation time (-1: not declared). */
+  /** Stamp of every name read at evaluation time (negative: not evaluated yet, see UNEVALUATED). */
   readStamps: Map<string, number>;
 }
 
@@ -40,17 +40,20 @@ interface Decl {
 
 const LINE_BREAK = /\r\n|\r|\n/;
 
-function newCache(): Cache {
-  return { math: createSafeMath(), compiled: new Map(), parsed: new Map(), outcomes: new Map(), nextStamp: 1 };
+/** Read stamps of names that have no evaluation (yet) in this call, by declared kind. */
+const UNEVALUATED: Record<EntryKind | 'undeclared', number> = { undeclared: -1, let: -2, substrate: -3, line: -4, stub: -5 };
+
+function newCache(math?: SafeMath): Cache {
+  return { math: math ?? createSafeMath(), compiled: new Map(), parsed: new Map(), outcomes: new Map(), nextStamp: 1 };
 }
 
 /** Evaluates a whole sheet, reusing everything unchanged since `previous`. */
 export function evaluateSheet(text: string, previous?: SheetResult, options: SheetOptions = {}): SheetResult {
   const marginPct = options.marginPct ?? DEFAULT_MARGIN_PCT;
-  const cache = (previous?.cache as Cache | undefined) ?? newCache();
+  const cache = (previous?.cache as Cache | undefined) ?? newCache(options.math);
   const lines = text.split(LINE_BREAK);
   const diagnostics: SheetDiagnostic[] = [];
-  const at = (line: number, d: LocalDiagnostic) => diagnostics.push(toSheetDiagnostic(line, d, declRange));
+  const at = (line: number, d: LocalDiagnostic) => diagnostics.push(toSheetDiagnostic(line, clampToLine(d, lines[line]!.length), declRange));
 
   // 1. Parse (cached per line text) and collect declarations; the first of each name wins.
   const parsed = new Map<string, ParsedLine>();
@@ -98,7 +101,9 @@ export function evaluateSheet(text: string, previous?: SheetResult, options: She
   const run = (d: Decl, fresh: () => Outcome, extraKey = '') => {
     const key = d.key + extraKey;
     const cached = cache.outcomes.get(key);
-    const current = (n: string) => stamps.get(n) ?? -1;
+    // A name not evaluated yet (declared further on in evaluation order, or a let in a cycle) stands
+    // for its kind: the messages about it ("l is a line, not a value") depend on the kind alone.
+    const current = (n: string) => stamps.get(n) ?? UNEVALUATED[kinds.get(n) ?? 'undeclared'];
     let entry: CachedOutcome;
     if (cached && [...cached.readStamps].every(([n, s]) => current(n) === s)) {
       entry = cached;
@@ -172,6 +177,16 @@ export function evaluateSheet(text: string, previous?: SheetResult, options: She
   return { entries, diagnostics, symbols, stats, cache };
 }
 
+/**
+ * Keeps a diagnostic inside its line: a problem found at the end of a line ("the line ends", an
+ * empty value after "±") is reported one column past it, which is moved back onto the last character.
+ */
+function clampToLine(d: LocalDiagnostic, length: number): LocalDiagnostic {
+  if (d.end <= length) return d;
+  const end = length;
+  return { ...d, start: Math.min(d.start, Math.max(0, end - 1)), end };
+}
+
 const rangeOf = (line: number, start: number, end: number): Range => ({ start: { line, character: start }, end: { line, character: end } });
 
 function toSheetDiagnostic(line: number, d: LocalDiagnostic, declRange: (name: string) => Range | undefined): SheetDiagnostic {
@@ -181,6 +196,7 @@ function toSheetDiagnostic(line: number, d: LocalDiagnostic, declRange: (name: s
     return range ? [{ range, message: r.message }] : [];
   });
   if (related.length > 0) out.related = related;
+  if (d.data) out.data = d.data;
   return out;
 }
 

@@ -34,7 +34,7 @@ export const SUBSTRATE_KEYS: KeyTable = {
     dk: { value: q('dimensionless', true), doc: 'relative permittivity (Dk, εr); "± T" or "± P %" adds a tolerance', aliases: ['er'] },
     df: { value: q('dimensionless'), doc: 'loss tangent (Df, tan δ)' },
     height: { value: q('length', true), doc: 'dielectric height between strip and ground' },
-    copper: { value: { type: 'copper' }, doc: 'copper thickness, e.g. 35 um, or weight in oz per square foot (1 oz ≈ 34.8 µm)' },
+    copper: { value: { type: 'copper' }, doc: 'copper thickness, e.g. 35 um, or weight in oz per square foot (1 oz ≈ 34.1 µm)' },
     roughness: { value: q('length'), doc: 'rms surface roughness of the copper (reserved for conductor loss)' },
     conductivity: { value: q('conductivity'), doc: 'conductor conductivity (default annealed copper, 5.8e7 S/m)' },
   },

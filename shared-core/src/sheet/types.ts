@@ -3,6 +3,8 @@
  * Positions are 0-based lines and 0-based UTF-16 columns (as LSP uses); the CLI's JSON adds 1.
  */
 
+import type { SafeMath } from './expr/index.js';
+
 export interface Position {
   line: number;
   character: number;
@@ -43,6 +45,8 @@ export interface SheetDiagnostic {
   /** Says what is wrong and how to fix it. */
   message: string;
   related?: RelatedInformation[];
+  /** Machine-readable fix data for code actions, e.g. a stub length that clears the warning (m). */
+  data?: { lengthM?: number };
 }
 
 export type EntryKind = 'let' | 'substrate' | 'line' | 'stub';
@@ -81,6 +85,11 @@ export interface SheetSymbol {
 export interface SheetOptions {
   /** Resonance margin in percent (default 10). */
   marginPct?: number;
+  /**
+   * A locked-down mathjs instance to reuse (building one costs ~0.2 s). It is immutable, so one
+   * instance may serve many sheets; when omitted a new one is made for a cold evaluation.
+   */
+  math?: SafeMath;
 }
 
 export interface EvaluationStats {

@@ -90,7 +90,7 @@ export function evalLine(decl: ParsedDeclaration, scope: SheetScope, resolved: R
     substrate = lookup(reader, head.on, 'substrate', resolved.substrate(head.on.text))?.substrate;
     if (!substrate) return finish(reader);
   } else if (head.on) {
-    reader.error(head.on.start, head.on.end, 'syntax', `a ${head.word.text} line needs no substrate: remove "on ${head.on.text}"`);
+    reader.error(head.on.start, head.on.end, 'syntax', `${/^[aeiou]/i.test(head.word.text) ? 'an' : 'a'} ${head.word.text} line needs no substrate: remove "on ${head.on.text}"`);
   }
   if (type.keys.required.some((g) => !g.some((k) => values.has(k)))) return finish(reader);
   let build: LineBuild;
@@ -98,7 +98,11 @@ export function evalLine(decl: ParsedDeclaration, scope: SheetScope, resolved: R
     build = type.build(values, substrate ?? null);
   } catch (e) {
     if (!(e instanceof RangeError)) throw e;
-    const target = [...values.values()].find((v) => v.key === 'z0' || v.key === 'width')?.item ?? decl.items[0];
+    // Point at the key the engine names ("velocity factor must…", "widthM must…", "Z0 = … is not
+    // reachable"), else at the width or z0 that sets the geometry.
+    const all = [...values.values()];
+    const named = all.find((v) => new RegExp(`^${v.key}M?\\b`, 'i').test(e.message));
+    const target = (named ?? all.find((v) => v.key === 'z0' || v.key === 'width'))?.item ?? decl.items[0];
     const at = target?.value ?? decl.name;
     reader.error(at.start, at.end, 'range', e.message);
     return finish(reader);

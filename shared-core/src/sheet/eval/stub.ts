@@ -93,9 +93,7 @@ export function evalStub(decl: ParsedDeclaration, scope: SheetScope, resolved: R
   const models: LineModel[] = [line.model, ...line.corners()];
   const lengths = lengthTol > 0 ? [lengthM, lengthM - lengthTol, lengthM + lengthTol] : [lengthM];
   const corners = models.flatMap((m) => lengths.filter((l) => l > 0).map((l) => ({ m, l })));
-  const margins = corners.map(({ m, l }) => ({ ...nearestResonances(kind, m, l, f), l }));
-  const worst = margins.reduce((w, c) => (c.marginPct < w.marginPct ? c : w));
-  const best = margins.reduce((w, c) => (c.marginPct > w.marginPct ? c : w));
+  const { worst, best } = cornerMargins(kind, models, lengthM, lengthTol, f);
   const toleranced = corners.length > 1;
   if (toleranced) details.push(`tolerance corners (${corners.length}): margin ${worst.marginPct.toFixed(1)} … ${best.marginPct.toFixed(1)} %`);
 
@@ -107,12 +105,14 @@ export function evalStub(decl: ParsedDeclaration, scope: SheetScope, resolved: R
     diagnostics.push({
       start: valueSpan.start, end: valueSpan.end, severity: 'warning', code: 'near-resonance', related,
       message: `${decl.name.text} is ${worst.marginPct.toFixed(1)} % from its ${describe(worst.nearest)}${cornerNote}, inside the ${marginPct} % margin: it no longer acts as a clean ${a.behaviour === 'capacitive' ? 'C' : 'L'}. Shorten or lengthen it, or mark it "resonant" if intended`,
+      ...(target ? {} : withLength(escapeLength(kind, models, lengthM, lengthTol, f, marginPct))),
     });
   }
   if (resonant && best.marginPct > marginPct) {
     diagnostics.push({
       start: valueSpan.start, end: valueSpan.end, severity: 'warning', code: 'detuned', related,
       message: `${decl.name.text} is marked resonant but its nearest resonance is ${best.marginPct.toFixed(1)} % away${cornerNote} (${describe(best.nearest)}), outside the ${marginPct} % margin: retune the length`,
+      ...(target ? {} : withLength(retuneLength(kind, line.model, f, best.nearest.quarterWaves))),
     });
   }
   const band = values.get('band')?.range;
@@ -130,11 +130,50 @@ export function evalStub(decl: ParsedDeclaration, scope: SheetScope, resolved: R
       const bandSpan = values.get('band')!.item.value!;
       diagnostics.push({
         start: bandSpan.start, end: bandSpan.end, severity: 'warning', code: 'resonance-in-band', related,
-        message: `${describe(r)} falls inside the band widened by the ${marginPct} % margin (${formatQuantity(lo, 'frequency')} … ${formatQuantity(hi, 'frequency')})${cornerNote}: the stub does not act as an L or C across the band`,
+        message: `${describe(r)} falls inside the band widened by the ${marginPct} % margin (${formatQuantity(lo, 'frequency')} … ${formatQuantity(hi, 'frequency')})${cornerNote}: the stub does not act as an L or C across the band. ${r.frequencyHz > f ? 'Shorten it to move that resonance above' : 'Lengthen it to move that resonance below'} the band`,
       });
     }
   }
   details.push(`line ${head.on.text}: ${line.modelName}`);
   const synthesized = target ? [{ key: 'length', valueSI: lengthM, start: lengthItem.item.span.start, end: lengthItem.item.span.end }] : [];
   return finish(reader, { results, details, synthesized, diagnostics });
+}
+
+const withLength = (lengthM: number | null) => (lengthM === null ? {} : { data: { lengthM } });
+
+/** Nearest-resonance margins over every tolerance corner (line corners × length ± tolerance). */
+function cornerMargins(kind: StubKind, models: LineModel[], lengthM: number, lengthTol: number, f: number) {
+  const lengths = lengthTol > 0 ? [lengthM, lengthM - lengthTol, lengthM + lengthTol] : [lengthM];
+  const margins = models.flatMap((m) => lengths.filter((l) => l > 0).map((l) => nearestResonances(kind, m, l, f)));
+  const worst = margins.reduce((w, c) => (c.marginPct < w.marginPct ? c : w));
+  const best = margins.reduce((w, c) => (c.marginPct > w.marginPct ? c : w));
+  return { worst, best };
+}
+
+/**
+ * A length that moves the nearest resonance out of the margin (plus 0.5 % headroom) at every
+ * tolerance corner, moving away from that resonance; null when no such length is found nearby.
+ * Uses f_res ∝ 1/l as the step and re-solves the resonances with the full model each time.
+ */
+export function escapeLength(kind: StubKind, models: LineModel[], lengthM: number, lengthTol: number, f: number, marginPct: number): number | null {
+  const goal = marginPct + 0.5;
+  let l = lengthM;
+  for (let i = 0; i < 12; i++) {
+    const { worst } = cornerMargins(kind, models, l, lengthTol, f);
+    if (worst.marginPct >= goal) return l;
+    const r = worst.nearest.frequencyHz;
+    const aim = r > f ? f * (1 + goal / 100) : f * (1 - goal / 100);
+    l *= r / aim;
+    if (!(l > lengthTol)) return null;
+  }
+  return null;
+}
+
+/** The length that puts resonance number n (quarter waves) exactly at f. */
+function retuneLength(kind: StubKind, model: LineModel, f: number, quarterWaves: number): number | null {
+  try {
+    return synthesizeStub(kind, model, { kind: 'angle', radians: (quarterWaves * Math.PI) / 2 }, f).lengthM;
+  } catch {
+    return null;
+  }
 }

@@ -6,7 +6,7 @@
 import { isUnit, type Unit } from 'mathjs';
 import {
   compileExpression, expectKind, formatValue, quantityKind, splitRange, splitTolerance,
-  type CompileResult, type QuantityKind, type SafeMath, type Value,
+  type CompileResult, type NameRef, type QuantityKind, type SafeMath, type Value,
 } from '../expr/index.js';
 import type { LocalDiagnostic, Span } from '../parse/lineParser.js';
 import type { DiagnosticCode, EntryKind } from '../types.js';
@@ -40,6 +40,8 @@ export class ValueReader {
   readonly reads = new Set<string>();
   /** Declared names referenced, with their column ranges. */
   readonly references: { name: string; start: number; end: number }[] = [];
+  /** Single-letter names read as units (`h` → hour) so far, for the unit-check messages. */
+  private readonly letterUnits: NameRef[] = [];
 
   constructor(readonly scope: SheetScope) {}
 
@@ -76,6 +78,7 @@ export class ValueReader {
       this.error(span.start + at.start, span.start + at.end, mapCode(at.code, at.message), at.message);
       return null;
     }
+    this.letterUnits.push(...result.letterUnits);
     return result.value;
   }
 
@@ -119,6 +122,7 @@ export class ValueReader {
 
   /** A value for `key` that must be of `kind`; tolerance allowed when `tolerance` is set. */
   quantity(span: Span, kind: QuantityKind, key: string, tolerance: boolean): Quantity | null {
+    const letters = this.letterUnits.length;
     const named = this.wholeLet(span);
     let value: LetValue | null;
     if (named) value = named;
@@ -134,7 +138,7 @@ export class ValueReader {
       this.error(span.start, span.end, 'unit', `${key} wants a single value, but ${span.text} is a range`);
       return null;
     }
-    const nominal = this.check(value.value, kind, key, span);
+    const nominal = this.check(value.value, kind, key, span, letters);
     if (nominal === null) return null;
     if (!value.tolerance) return { si: nominal, tolSI: 0 };
     if (!tolerance) {
@@ -143,7 +147,7 @@ export class ValueReader {
     }
     const tolSI = value.tolerance.percent
       ? (Math.abs(nominal) * toNumber(value.tolerance.value)) / 100
-      : this.check(value.tolerance.value, kind, `${key} tolerance`, span);
+      : this.check(value.tolerance.value, kind, `${key} tolerance`, span, letters);
     if (tolSI === null || !Number.isFinite(tolSI)) return null;
     if (tolSI < 0) {
       this.error(span.start, span.end, 'range', `a tolerance cannot be negative: write ± ${formatValue(value.tolerance.value).replace(/^-/, '')}`);
@@ -154,6 +158,7 @@ export class ValueReader {
 
   /** A range `A .. B` (or a let name holding one) of `kind`, as [low, high] SI. */
   range(span: Span, kind: QuantityKind, key: string): [number, number] | null {
+    const letters = this.letterUnits.length;
     const named = this.wholeLet(span);
     const value = named ?? (splitRange(span.text) ? this.letValue(span) : null);
     if (!named && !splitRange(span.text)) {
@@ -165,8 +170,8 @@ export class ValueReader {
       this.error(span.start, span.end, 'unit', `${key} wants a range LOW .. HIGH, but ${span.text} is a single value`);
       return null;
     }
-    const low = this.check(value.low, kind, key, span);
-    const high = this.check(value.high, kind, key, span);
+    const low = this.check(value.low, kind, key, span, letters);
+    const high = this.check(value.high, kind, key, span, letters);
     if (low === null || high === null) return null;
     if (!(high > low)) {
       this.error(span.start, span.end, 'range', `${key} must go from low to high: swap the two ends`);
@@ -175,8 +180,9 @@ export class ValueReader {
     return [low, high];
   }
 
-  private check(value: Value, kind: QuantityKind, key: string, span: Span): number | null {
-    const r = expectKind(value, kind, key);
+  /** `from`: index into the letter units read by this value (see `quantity`). */
+  private check(value: Value, kind: QuantityKind, key: string, span: Span, from: number): number | null {
+    const r = expectKind(value, kind, key, this.letterUnits.slice(from));
     if (!r.ok) {
       this.error(span.start, span.end, 'unit', r.message);
       return null;

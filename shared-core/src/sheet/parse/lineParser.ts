@@ -10,6 +10,7 @@
  * Items are split at top-level commas (commas inside parentheses belong to function calls).
  * All offsets are 0-based UTF-16 columns in the line, `end` exclusive.
  */
+import { RESERVED_NAMES } from '../expr/index.js';
 import type { DiagnosticCode } from '../types.js';
 
 export interface Span {
@@ -27,6 +28,8 @@ export interface LocalDiagnostic {
   message: string;
   /** Names of other declarations involved (shown as related information). */
   related?: { name: string; message: string }[];
+  /** Fix data for code actions (see SheetDiagnostic.data). */
+  data?: { lengthM?: number };
 }
 
 export interface Item {
@@ -108,6 +111,9 @@ export function parseLine(text: string): ParsedLine {
   if (!name || nameAt === keyword.end) {
     return { declaration: null, errors: [err(nameAt, spanOf(code, nameAt, code.length).end, 'syntax', `${kind} needs a name: ${kind} NAME${kind === 'let' ? ' = value' : ': …'}`)] };
   }
+  if (RESERVED_NAMES.has(name.text)) {
+    return { declaration: null, errors: [err(name.start, name.end, 'syntax', `"${name.text}" is a reserved word: choose another name`)] };
+  }
   const span = spanOf(code, start, code.length);
   const sepAt = skipSpace(code, name.end);
   const sep = kind === 'let' ? '=' : ':';
@@ -124,7 +130,11 @@ export function parseLine(text: string): ParsedLine {
   let head: ParsedDeclaration['head'] = null;
   if ((kind === 'line' || kind === 'stub') && items.length > 0) {
     const first = items.shift()!;
-    head = parseHead(first, errors);
+    if (first.key.text === 'on') {
+      const what = kind === 'line' ? 'the line type' : 'short or open';
+      const example = kind === 'line' ? 'microstrip on' : 'short on';
+      errors.push(err(first.key.start, first.key.end, 'missing', `${what} goes before "on": ${example} ${first.value?.text || 'NAME'}`));
+    } else head = parseHead(first, errors);
   } else if (kind !== 'substrate' || items.length === 0) {
     const what = kind === 'substrate' ? 'dk …, height …' : kind === 'line' ? 'a line type (microstrip, ideal, coax)' : 'short or open on LINE';
     errors.push(err(sepAt, sepAt + 1, 'missing', `${kind} ${name.text} needs ${what} after ":"`));

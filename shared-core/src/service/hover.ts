@@ -1,0 +1,79 @@
+/**
+ * Hovers: on a name, the value it stands for; anywhere else on a declaration, a Markdown summary
+ * of every result for that line (electrical length, Zin, L/C, resonances and margin, band, model).
+ */
+import { formatQuantity } from '../sheet/format.js';
+import type { Position, SheetEntry } from '../sheet/types.js';
+import { equivalent, num, shower } from './display.js';
+import { entryOnLine, symbolAt } from './locate.js';
+import type { EvaluatedDocument, Hover } from './types.js';
+
+export function getHover(doc: EvaluatedDocument, p: Position): Hover | null {
+  const hit = symbolAt(doc, p);
+  if (hit) {
+    const entry = doc.result.entries.find((e) => e.name === hit.symbol.name && e.line === hit.symbol.declaration.start.line);
+    if (!entry) return null;
+    const isDeclaration = hit.range === hit.symbol.declaration;
+    return { contents: isDeclaration ? summary(entry, doc) : brief(entry, doc), range: hit.range };
+  }
+  const entry = entryOnLine(doc, p.line);
+  if (!entry || p.character > entry.range.end.character) return null;
+  return { contents: summary(entry, doc), range: entry.range };
+}
+
+/** One line about a referenced name. */
+function brief(entry: SheetEntry, doc: EvaluatedDocument): string {
+  const show = shower(entry.results, doc.settings);
+  const head = `**${entry.name}** (${entry.kind})`;
+  switch (entry.kind) {
+    case 'let':
+      return `${head} = ${entry.results.value ?? '—'}`;
+    case 'substrate':
+      return `${head}: Dk ${entry.results.dk ?? '—'}, height ${show('height_m', 'length')}`;
+    case 'line':
+      return `${head}: Z0 ${show('z0_ohm', 'impedance')}, εeff ${num(entry.results, 'eps_eff')?.toFixed(4) ?? '—'}`;
+    case 'stub':
+      return `${head}: ${show('length_m', 'length')}, ${equivalent(entry, show) ?? 'resonant'} at ${show('frequency_hz', 'frequency')}`;
+  }
+}
+
+const row = (label: string, value: string) => `| ${label} | ${value} |`;
+
+/** The full story of one declaration as a Markdown table plus model notes. */
+function summary(entry: SheetEntry, doc: EvaluatedDocument): string {
+  const r = entry.results;
+  const show = shower(r, doc.settings);
+  const rows: string[] = [];
+  const synth = (key: string) => (entry.synthesized.some((s) => s.key === key) ? ' (synthesized)' : '');
+  if (entry.kind === 'line' && num(r, 'z0_ohm') !== null) {
+    rows.push(row('Z0 (static)', show('z0_ohm', 'impedance')), row('εeff (static)', num(r, 'eps_eff')!.toFixed(4)));
+    if (num(r, 'width_m') !== null) rows.push(row('width', show('width_m', 'length') + synth('width')));
+    if (num(r, 'frequency_hz') !== null) {
+      rows.push(
+        row(`at ${show('frequency_hz', 'frequency')}`, `Z0 ${show('z0_at_f_ohm', 'impedance')}, εeff ${num(r, 'eps_eff_at_f')!.toFixed(4)}`),
+        row('guided wavelength λg', show('wavelength_m', 'length')),
+        row('loss (dielectric)', `${num(r, 'loss_db_per_m')!.toPrecision(3)} dB/m`),
+      );
+    }
+  } else if (entry.kind === 'stub' && num(r, 'length_m') !== null) {
+    const x = num(r, 'reactance_ohm');
+    const reactance = x === null ? '∞ (open circuit)' : `${x >= 0 ? '+' : '−'}j${formatQuantity(Math.abs(x), 'impedance')}`;
+    const margin = num(r, 'resonance_margin_pct')!;
+    rows.push(
+      row('length', show('length_m', 'length') + synth('length')),
+      row('electrical length', `${num(r, 'electrical_deg')!.toFixed(1)}° = ${num(r, 'wavelength_fraction')!.toFixed(4)} λg at ${show('frequency_hz', 'frequency')}`),
+      row('Zin', `${show('resistance_ohm', 'resistance')} ${reactance}`),
+      row('acts as', `${r.behaviour}${equivalent(entry, show) ? `, ${equivalent(entry, show)}` : ''}`),
+      row('resonance below / above', `${show('resonance_below_hz', 'frequency')} / ${show('resonance_above_hz', 'frequency')}`),
+      row('margin to nearest', `${margin.toFixed(1)} % (warning below ${doc.settings.marginPct} %)`),
+    );
+    if (num(r, 'band_spread_pct') !== null) {
+      const q = num(r, 'inductance_h') !== null ? 'inductance' : 'capacitance';
+      rows.push(row('across the band', `${formatQuantity(num(r, 'band_min'), q)} … ${formatQuantity(num(r, 'band_max'), q)} (spread ${num(r, 'band_spread_pct')!.toFixed(1)} %)`));
+    }
+  }
+  const head = `**${entry.name}** · ${entry.kind}`;
+  const notes = entry.details.filter((d) => /^(model|line |tolerance|band )/.test(d) || rows.length === 0);
+  const table = rows.length ? ['', '| | |', '|---|---|', ...rows].join('\n') : '';
+  return [head + table, ...notes.map((n) => `\n_${n}_`)].join('\n');
+}
