@@ -4,14 +4,16 @@
  * equivalent L or C at f, and the resonance margin when it is tight.
  */
 import type { Range, SheetEntry } from '../sheet/types.js';
+import { formatQuantity } from '../sheet/format.js';
 import { equivalent, num, shower } from './display.js';
-import type { EvaluatedDocument, InlayHint } from './types.js';
+import type { EvaluatedDocument, InlayHint, ServiceSettings } from './types.js';
 
 /** Margins below this multiple of the configured margin are shown in the hint. */
 const TIGHT_FACTOR = 2;
 
-export function hintLabel(entry: SheetEntry, doc: EvaluatedDocument): string | null {
-  const show = shower(entry.results, doc.settings);
+/** The compact figures for one declaration (also the CLI's trailing note); null when there are none. */
+export function hintLabel(entry: SheetEntry, settings: ServiceSettings): string | null {
+  const show = shower(entry.results, settings);
   const r = entry.results;
   switch (entry.kind) {
     case 'let':
@@ -27,11 +29,19 @@ export function hintLabel(entry: SheetEntry, doc: EvaluatedDocument): string | n
       if (num(r, 'length_m') === null) return null;
       const parts: string[] = [];
       if (entry.synthesized.some((s) => s.key === 'length')) parts.push(`ℓ = ${show('length_m', 'length')}`);
+      if (r.resonant_intended === true) {
+        // An intended resonance (choke, trap): say where it sits, not what L or C it approximates.
+        const f = num(r, 'frequency_hz')!;
+        const near = [num(r, 'resonance_below_hz'), num(r, 'resonance_above_hz')].filter((x): x is number => x !== null)
+          .reduce((a, b) => (Math.abs(b - f) < Math.abs(a - f) ? b : a));
+        parts.push(`resonance ${formatQuantity(near, 'frequency')} (${((Math.abs(near - f) / f) * 100).toFixed(1)} % off)`);
+        return parts.join(' · ');
+      }
       const eq = equivalent(entry, show);
       if (eq) parts.push(eq, `X ${show('reactance_ohm', 'reactance')}`);
-      else parts.push(`resonant (R ${show('resistance_ohm', 'resistance')})`);
+      else parts.push(num(r, 'resistance_ohm') === null ? 'resonant' : `resonant (R ${show('resistance_ohm', 'resistance')})`);
       const margin = num(r, 'resonance_margin_pct');
-      if (margin !== null && margin < TIGHT_FACTOR * doc.settings.marginPct && r.behaviour !== 'resonant') {
+      if (margin !== null && margin < TIGHT_FACTOR * settings.marginPct && r.behaviour !== 'resonant') {
         parts.push(`${margin.toFixed(1)} % from resonance`);
       }
       return parts.join(' · ');
@@ -45,7 +55,7 @@ export function getInlayHints(doc: EvaluatedDocument, range?: Range): InlayHint[
   const hints: InlayHint[] = [];
   for (const entry of doc.result.entries) {
     if (range && (entry.line < range.start.line || entry.line > range.end.line)) continue;
-    const label = hintLabel(entry, doc);
+    const label = hintLabel(entry, doc.settings);
     if (label) hints.push({ position: entry.range.end, label, tooltip: entry.details.join('\n') });
   }
   return hints;

@@ -48,6 +48,11 @@ export function createSheetService(): SheetService {
       const settings = { ...DEFAULT_SETTINGS, ...partial };
       const stored = docs.get(uri);
       if (stored && stored.version === version && stored.marginPct === settings.marginPct && stored.doc.text === text) {
+        // Display-only settings (grid, length unit, hints) need no re-evaluation, only a new view.
+        const s = stored.doc.settings;
+        if (s.gridM !== settings.gridM || s.lengthUnit !== settings.lengthUnit || s.inlayHints !== settings.inlayHints) {
+          stored.doc = { ...stored.doc, settings };
+        }
         return stored.doc;
       }
       const result = evaluateSheet(text, stored?.doc.result, { marginPct: settings.marginPct, math });

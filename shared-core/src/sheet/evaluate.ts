@@ -64,7 +64,7 @@ export function evaluateSheet(text: string, previous?: SheetResult, options: She
     parsed.set(lineText, p);
     for (const e of p.errors) at(i, e);
     if (!p.declaration) continue;
-    const d: Decl = { line: i, decl: p.declaration, key: `${p.declaration.kind}\u0000${lineText.split('#')[0]}` };
+    const d: Decl = { line: i, decl: p.declaration, key: `${p.declaration.kind}\u0000${lineText.split('#')[0]!.trimEnd()}` };
     const first = byName.get(d.decl.name.text);
     if (first) {
       at(i, {

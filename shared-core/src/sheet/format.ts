@@ -12,7 +12,7 @@
  * - Prefixes step by 1000, except that the units boards are drawn in start at 0.1 of the unit:
  *   `0.15 mm` (µm below), `0.3 Ω` (mΩ below), `0.35 nH` (pH below), `0.9 pF` (fF below).
  * - One space between number and unit (`2.19 mm`, `12.3 %`), none before the degree sign (`45°`).
- *   Every unit spelling here (µ, Ω, −, °) is accepted back by the sheet language.
+ *   The µ, Ω, − and ° spellings used here are accepted back by the sheet language.
  * - `null`, `NaN` and ±Infinity print as `—`.
  */
 

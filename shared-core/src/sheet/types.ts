@@ -51,8 +51,8 @@ export interface SheetDiagnostic {
 
 export type EntryKind = 'let' | 'substrate' | 'line' | 'stub';
 
-/** A JSON-safe result value: SI numbers, strings for enumerations, null where not defined. */
-export type ResultValue = number | string | null;
+/** A JSON-safe result value: SI numbers, strings for enumerations, flags, null where not defined. */
+export type ResultValue = number | string | boolean | null;
 
 /** Pinned result keys per entry kind (see README "JSON output"); add keys, never rename. */
 export type EntryResults = Record<string, ResultValue>;

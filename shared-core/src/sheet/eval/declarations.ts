@@ -21,9 +21,11 @@ export interface Resolved {
 
 export const NEPER_TO_DB = 20 / Math.LN10;
 
+/** Assembles an outcome; non-finite numbers in the results become null (results are JSON-safe). */
 export function finish(reader: ValueReader, partial: Partial<Outcome> = {}): Outcome {
+  const results = Object.fromEntries(Object.entries(partial.results ?? {}).map(([k, v]) => [k, typeof v === 'number' && !Number.isFinite(v) ? null : v]));
   return {
-    results: {}, details: [], synthesized: [], ...partial,
+    details: [], synthesized: [], ...partial, results,
     diagnostics: [...reader.diagnostics, ...(partial.diagnostics ?? [])],
     reads: reader.reads, references: reader.references,
   };
@@ -105,6 +107,12 @@ export function evalLine(decl: ParsedDeclaration, scope: SheetScope, resolved: R
     const target = (named ?? all.find((v) => v.key === 'z0' || v.key === 'width'))?.item ?? decl.items[0];
     const at = target?.value ?? decl.name;
     reader.error(at.start, at.end, 'range', e.message);
+    return finish(reader);
+  }
+  if (!(Number.isFinite(build.z0) && build.z0 > 0 && Number.isFinite(build.epsEff) && build.epsEff > 0)) {
+    // Extreme input (a width of 1e-300 m) can take a closed-form model past what floating point holds.
+    const at = ([...values.values()].find((v) => v.key === 'z0' || v.key === 'width')?.item ?? decl.items[0])?.value ?? decl.name;
+    reader.error(at.start, at.end, 'range', `the ${head.word.text} model gives no finite Z0 and εeff for these values: check them and their units`);
     return finish(reader);
   }
   const f = si(values, 'at');

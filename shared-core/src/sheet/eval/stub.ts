@@ -4,7 +4,7 @@
  * (near-resonance, resonance-in-band, detuned), taken at the worst tolerance corner.
  */
 import {
-  analyseBand, analyseStub, nearestResonances, resonancesInRange, synthesizeStub,
+  analyseBand, analyseStub, electricalLengthAt, nearestResonances, resonancesInRange, synthesizeStub,
   type LineModel, type Resonance, type StubKind, type StubTarget,
 } from '../../engine/index.js';
 import { formatQuantity } from '../format.js';
@@ -78,7 +78,7 @@ export function evalStub(decl: ParsedDeclaration, scope: SheetScope, resolved: R
     length_m: lengthM, frequency_hz: f, electrical_deg: a.electricalDeg, wavelength_fraction: a.wavelengthFraction,
     reactance_ohm: finite(a.reactance), resistance_ohm: finite(a.resistance), inductance_h: a.inductance, capacitance_f: a.capacitance,
     behaviour: a.behaviour, resonance_below_hz: near.below?.frequencyHz ?? null, resonance_above_hz: near.above.frequencyHz,
-    resonance_margin_pct: near.marginPct,
+    resonance_margin_pct: near.marginPct, resonant_intended: values.has('resonant'),
   };
   const lc = a.inductance !== null ? `≈ ${formatQuantity(a.inductance, 'inductance')}` : a.capacitance !== null ? `≈ ${formatQuantity(a.capacitance, 'capacitance')}` : 'neither an L nor a C here';
   const x = Math.abs(a.reactance) < 1e-9 * Math.max(1, Math.abs(a.resistance)) ? 0 : a.reactance;
@@ -116,7 +116,14 @@ export function evalStub(decl: ParsedDeclaration, scope: SheetScope, resolved: R
     });
   }
   const band = values.get('band')?.range;
-  if (band) {
+  const bandCount = band ? bandResonanceCount(corners, band, marginPct) : 0;
+  if (band && !(bandCount <= MAX_BAND_RESONANCES)) {
+    const bandSpan = values.get('band')!.item.value!;
+    diagnostics.push({
+      start: bandSpan.start, end: bandSpan.end, severity: 'error', code: 'limit',
+      message: `the band widened by the ${marginPct} % margin holds about ${bandCount < 1e6 ? Math.round(bandCount) : bandCount.toExponential(1)} resonances of this stub, more than ${MAX_BAND_RESONANCES} are not checked: check the length, its unit and the band`,
+    });
+  } else if (band) {
     const b = analyseBand(kind, line.model, lengthM, band[0], band[1]);
     Object.assign(results, { band_min: b.min, band_max: b.max, band_spread_pct: b.spreadPct });
     if (b.quantity && b.spreadPct !== null) {
@@ -137,6 +144,16 @@ export function evalStub(decl: ParsedDeclaration, scope: SheetScope, resolved: R
   details.push(`line ${head.on.text}: ${line.modelName}`);
   const synthesized = target ? [{ key: 'length', valueSI: lengthM, start: lengthItem.item.span.start, end: lengthItem.item.span.end }] : [];
   return finish(reader, { results, details, synthesized, diagnostics });
+}
+
+/** Most resonances a band check enumerates (a stub hundreds of wavelengths long, or a band decades wide). */
+export const MAX_BAND_RESONANCES = 1000;
+
+/** Number of resonances in the band widened by the margin, at the corner that holds the most. */
+function bandResonanceCount(corners: { m: LineModel; l: number }[], band: [number, number], marginPct: number): number {
+  const lo = band[0] * (1 - marginPct / 100);
+  const hi = band[1] * (1 + marginPct / 100);
+  return Math.max(...corners.map(({ m, l }) => (electricalLengthAt(m, l, hi) - electricalLengthAt(m, l, Math.max(0, lo))) / (Math.PI / 2)));
 }
 
 const withLength = (lengthM: number | null) => (lengthM === null ? {} : { data: { lengthM } });
