@@ -4,7 +4,7 @@
  */
 import { sigmaCopperAnnealed } from '../../engine/constants.js';
 import { c0 } from '../../engine/constants.js';
-import { formatValue } from '../expr/index.js';
+import { formatValue, quantityKind, toSI, type Value } from '../expr/index.js';
 import { formatQuantity } from '../format.js';
 import type { LocalDiagnostic, ParsedDeclaration } from '../parse/lineParser.js';
 import { SUBSTRATE_KEYS } from '../schema.js';
@@ -38,7 +38,11 @@ export function evalLet(decl: ParsedDeclaration, scope: SheetScope): Outcome {
   const shown = value.type === 'range'
     ? `${formatValue(value.low)} .. ${formatValue(value.high)}`
     : `${formatValue(value.value)}${value.tolerance ? ` ± ${formatValue(value.tolerance.value)}${value.tolerance.percent ? ' %' : ''}` : ''}`;
-  return finish(reader, { letValue: value, details: [`${decl.name.text} = ${shown}`], results: { value: shown } });
+  const si = (v: Value) => toSI(v, quantityKind(v)) ?? null;
+  const results: Outcome['results'] = value.type === 'range'
+    ? { value: shown, quantity: quantityKind(value.low), low_si: si(value.low), high_si: si(value.high) }
+    : { value: shown, quantity: quantityKind(value.value), value_si: si(value.value) };
+  return finish(reader, { letValue: value, details: [`${decl.name.text} = ${shown}`], results });
 }
 
 export function evalSubstrate(decl: ParsedDeclaration, scope: SheetScope): Outcome {
