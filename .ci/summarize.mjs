@@ -29,7 +29,7 @@ for (const file of files) {
     tests: report.numTotalTests ?? 0,
   };
   if (files.length > 1) {
-    console.log(`${basename(file, '.json')}: ${counts.passed} passed, ${counts.failed} failed, ${counts.skipped} skipped`);
+    console.log(`  ${basename(file)}: ${counts.passed} passed, ${counts.failed} failed, ${counts.skipped} skipped`);
   }
   if (counts.failed > 0 || counts.tests === 0) ok = false;
   for (const k of Object.keys(total)) total[k] += counts[k];

@@ -118,7 +118,7 @@ describe.skipIf(!nvim.available)(
 
     it('answers a raw inlay-hint request', () => {
       const hint = result.inlayHints?.find((h) => h.position.line === lload);
-      expect(hint?.label).toMatch(/% from resonance$/);
+      expect(hint?.label).toMatch(/% to res\.$/);
     });
   },
 );

@@ -24,7 +24,8 @@ export const eta0 = mu0 * c0;
 export const sigmaCopperAnnealed = 5.8e7;
 
 /**
- * Copper foil thickness per ounce of weight per square foot: 1 oz/ft² ≈ 34.79 µm
- * (28.3495 g spread over 0.09290 m² at a density of 8.96 g/cm³; IPC-4562 nominal 1 oz is 35 µm).
+ * Copper foil thickness per ounce of weight per square foot: 1 oz/ft² ≈ 34.06 µm
+ * (28.3495 g spread over 0.09290 m² at a density of 8.96 g/cm³; foil data sheets usually quote
+ * about 35 µm for 1 oz, from memory).
  */
 export const copperThicknessPerOz = 0.0283495 / (0.09290304 * 8960);

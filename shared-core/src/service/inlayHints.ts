@@ -42,7 +42,7 @@ export function hintLabel(entry: SheetEntry, settings: ServiceSettings): string 
       else parts.push(num(r, 'resistance_ohm') === null ? 'resonant' : `resonant (R ${show('resistance_ohm', 'resistance')})`);
       const margin = num(r, 'resonance_margin_pct');
       if (margin !== null && margin < TIGHT_FACTOR * settings.marginPct && r.behaviour !== 'resonant') {
-        parts.push(`${margin.toFixed(1)} % from resonance`);
+        parts.push(`${margin.toFixed(1)} % to res.`);
       }
       return parts.join(' · ');
     }

@@ -27,7 +27,7 @@ describe('inlay hints', () => {
   it('mention a tight resonance margin and honour the display unit and the on/off setting', () => {
     const { service, doc } = open(tour, { lengthUnit: 'mil' });
     const hint = service.getInlayHints(doc).find((h) => h.position.line === lineOf(tour, 'stub lload'))!;
-    expect(hint.label).toMatch(/2\.7 % from resonance/);
+    expect(hint.label).toMatch(/2\.7 % to res\./);
     const feed = service.getInlayHints(doc).find((h) => h.position.line === lineOf(tour, 'line feed'))!;
     expect(feed.label).toMatch(/mil/);
     expect(open(tour, { inlayHints: false }).service.getInlayHints(open(tour, { inlayHints: false }).doc)).toEqual([]);

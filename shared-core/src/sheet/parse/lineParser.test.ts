@@ -60,6 +60,11 @@ describe('let', () => {
     expect(d.span).toEqual({ text: 'let\tx\t=\t1 mm', start: 2, end: 14 });
   });
 
+  it('parseLine takes single lines: the evaluator splits at CRLF, CR and LF; a stray CR is whitespace', () => {
+    expect(parseLine('let x = 1 mm\r')).toEqual(parseLine('let x = 1 mm'));
+    expect(parseLine('\r')).toEqual({ declaration: null, errors: [] });
+  });
+
   it('a name may hold underscores and digits after the first letter', () => {
     expect(declaration('let _f_2 = 1').name).toEqual({ text: '_f_2', start: 4, end: 8 });
   });
