@@ -44,9 +44,14 @@ function summary(entry: SheetEntry, doc: EvaluatedDocument): string {
   const r = entry.results;
   const show = shower(r, doc.settings);
   const rows: string[] = [];
+  /** " (min … max over tolerances)" when the result has toleranced companions. */
+  const spread = (key: string, q: Parameters<typeof formatQuantity>[1]) =>
+    num(r, `${key}_min`) !== null && num(r, `${key}_max`) !== null
+      ? ` (${formatQuantity(num(r, `${key}_min`), q)} … ${formatQuantity(num(r, `${key}_max`), q)} over tolerances)`
+      : '';
   const synth = (key: string) => (entry.synthesized.some((s) => s.key === key) ? ' (synthesized)' : '');
   if (entry.kind === 'line' && num(r, 'z0_ohm') !== null) {
-    rows.push(row('Z0 (static)', show('z0_ohm', 'impedance')), row('εeff (static)', num(r, 'eps_eff')!.toFixed(4)));
+    rows.push(row('Z0 (static)', show('z0_ohm', 'impedance') + spread('z0_ohm', 'impedance')), row('εeff (static)', num(r, 'eps_eff')!.toFixed(4)));
     if (num(r, 'width_m') !== null) rows.push(row('width', show('width_m', 'length') + synth('width')));
     if (num(r, 'frequency_hz') !== null) {
       rows.push(
@@ -63,9 +68,9 @@ function summary(entry: SheetEntry, doc: EvaluatedDocument): string {
       row('length', show('length_m', 'length') + synth('length')),
       row('electrical length', `${num(r, 'electrical_deg')!.toFixed(1)}° = ${num(r, 'wavelength_fraction')!.toFixed(4)} λg at ${show('frequency_hz', 'frequency')}`),
       row('Zin', `${show('resistance_ohm', 'resistance')} ${reactance}`),
-      row('acts as', `${r.behaviour}${equivalent(entry, show) ? `, ${equivalent(entry, show)}` : ''}`),
+      row('acts as', `${r.behaviour}${equivalent(entry, show) ? `, ${equivalent(entry, show)}` : ''}${spread('inductance_h', 'inductance')}${spread('capacitance_f', 'capacitance')}`),
       row('resonance below / above', `${show('resonance_below_hz', 'frequency')} / ${show('resonance_above_hz', 'frequency')}`),
-      row('margin to nearest', `${margin.toFixed(1)} % (warning below ${doc.settings.marginPct} %)`),
+      row('margin to nearest', `${margin.toFixed(1)} %${spread('resonance_margin_pct', 'percent')} (warning below ${doc.settings.marginPct} %)`),
     );
     if (num(r, 'band_spread_pct') !== null) {
       const q = num(r, 'inductance_h') !== null ? 'inductance' : 'capacitance';

@@ -122,6 +122,12 @@ export function evalLine(decl: ParsedDeclaration, scope: SheetScope, resolved: R
   const f = si(values, 'at');
   const diagnostics: LocalDiagnostic[] = validityDiagnostics(build, f ?? 0, head.word);
   const results: Outcome['results'] = { z0_ohm: build.z0, eps_eff: build.epsEff, width_m: build.widthM };
+  const corners = build.corners().map((m) => m(0));
+  if (corners.length > 0) {
+    const z0s = corners.map((c) => c.z0);
+    const eps = corners.map((c) => c.epsEff);
+    Object.assign(results, { z0_ohm_min: Math.min(...z0s), z0_ohm_max: Math.max(...z0s), eps_eff_min: Math.min(...eps), eps_eff_max: Math.max(...eps) });
+  }
   const details = [
     `Z0 ${formatQuantity(build.z0, 'impedance')}, εeff ${build.epsEff.toFixed(4)} (static)${build.widthM !== null ? `, width ${formatQuantity(build.widthM, 'length')}${build.synthesizedWidthM !== null ? ' (synthesized)' : ''}` : ''}`,
   ];

@@ -5,7 +5,7 @@
  */
 import {
   analyseBand, analyseStub, electricalLengthAt, nearestResonances, resonancesInRange, synthesizeStub,
-  type LineModel, type Resonance, type StubKind, type StubTarget,
+  type LineModel, type NearestResonances, type Resonance, type StubKind, type StubTarget,
 } from '../../engine/index.js';
 import { formatQuantity } from '../format.js';
 import type { LocalDiagnostic, ParsedDeclaration } from '../parse/lineParser.js';
@@ -78,7 +78,7 @@ export function evalStub(decl: ParsedDeclaration, scope: SheetScope, resolved: R
     length_m: lengthM, frequency_hz: f, electrical_deg: a.electricalDeg, wavelength_fraction: a.wavelengthFraction,
     reactance_ohm: finite(a.reactance), resistance_ohm: finite(a.resistance), inductance_h: a.inductance, capacitance_f: a.capacitance,
     behaviour: a.behaviour, resonance_below_hz: near.below?.frequencyHz ?? null, resonance_above_hz: near.above.frequencyHz,
-    resonance_margin_pct: near.marginPct, resonant_intended: values.has('resonant'),
+    resonance_margin_pct: near.marginPct, resonance_nearest_hz: near.nearest.frequencyHz, resonant_intended: values.has('resonant'),
   };
   const lc = a.inductance !== null ? `≈ ${formatQuantity(a.inductance, 'inductance')}` : a.capacitance !== null ? `≈ ${formatQuantity(a.capacitance, 'capacitance')}` : 'neither an L nor a C here';
   const x = Math.abs(a.reactance) < 1e-9 * Math.max(1, Math.abs(a.resistance)) ? 0 : a.reactance;
@@ -93,9 +93,12 @@ export function evalStub(decl: ParsedDeclaration, scope: SheetScope, resolved: R
   const models: LineModel[] = [line.model, ...line.corners()];
   const lengths = lengthTol > 0 ? [lengthM, lengthM - lengthTol, lengthM + lengthTol] : [lengthM];
   const corners = models.flatMap((m) => lengths.filter((l) => l > 0).map((l) => ({ m, l })));
-  const { worst, best } = cornerMargins(kind, models, lengthM, lengthTol, f);
+  const { worst, best, all } = cornerMargins(kind, models, lengthM, lengthTol, f);
   const toleranced = corners.length > 1;
-  if (toleranced) details.push(`tolerance corners (${corners.length}): margin ${worst.marginPct.toFixed(1)} … ${best.marginPct.toFixed(1)} %`);
+  if (toleranced) {
+    details.push(`tolerance corners (${corners.length}): margin ${worst.marginPct.toFixed(1)} … ${best.marginPct.toFixed(1)} %`);
+    Object.assign(results, cornerRanges(kind, corners, f, all));
+  }
 
   const diagnostics: LocalDiagnostic[] = [...validityDiagnostics(line, f, atItem.value!)];
   const resonant = values.has('resonant');
@@ -161,10 +164,25 @@ const withLength = (lengthM: number | null) => (lengthM === null ? {} : { data: 
 /** Nearest-resonance margins over every tolerance corner (line corners × length ± tolerance). */
 function cornerMargins(kind: StubKind, models: LineModel[], lengthM: number, lengthTol: number, f: number) {
   const lengths = lengthTol > 0 ? [lengthM, lengthM - lengthTol, lengthM + lengthTol] : [lengthM];
-  const margins = models.flatMap((m) => lengths.filter((l) => l > 0).map((l) => nearestResonances(kind, m, l, f)));
-  const worst = margins.reduce((w, c) => (c.marginPct < w.marginPct ? c : w));
-  const best = margins.reduce((w, c) => (c.marginPct > w.marginPct ? c : w));
-  return { worst, best };
+  const all = models.flatMap((m) => lengths.filter((l) => l > 0).map((l) => nearestResonances(kind, m, l, f)));
+  const worst = all.reduce((w, c) => (c.marginPct < w.marginPct ? c : w));
+  const best = all.reduce((w, c) => (c.marginPct > w.marginPct ? c : w));
+  return { worst, best, all };
+}
+
+/** `*_min` / `*_max` companions over the tolerance corners: L or C, the nearest resonance and the margin. */
+function cornerRanges(kind: StubKind, corners: { m: LineModel; l: number }[], f: number, margins: NearestResonances[]): Outcome['results'] {
+  const span = (values: (number | null)[], key: string): Outcome['results'] => {
+    const v = values.filter((x): x is number => x !== null && Number.isFinite(x));
+    return v.length === values.length && v.length > 0 ? { [`${key}_min`]: Math.min(...v), [`${key}_max`]: Math.max(...v) } : {};
+  };
+  const stubs = corners.map(({ m, l }) => analyseStub(kind, m, l, f));
+  return {
+    ...span(stubs.map((a) => a.inductance), 'inductance_h'),
+    ...span(stubs.map((a) => a.capacitance), 'capacitance_f'),
+    ...span(margins.map((r) => r.nearest.frequencyHz), 'resonance_nearest_hz'),
+    ...span(margins.map((r) => r.marginPct), 'resonance_margin_pct'),
+  };
 }
 
 /**
