@@ -158,7 +158,7 @@ describe('language server over stdio (pull diagnostics)', () => {
     const on = (prefix: string) => hints.find((h) => h.position.line === lineOf(prefix));
     expect(on('line feed')).toMatchObject({ label: expect.stringMatching(/^w = 2\.2 mm · εeff 2\.1\d\d$/), paddingLeft: true });
     expect(on('line feed')!.position.character).toBe(LINES[lineOf('line feed')]!.length);
-    expect(on('stub lload')!.label).toMatch(/nH · X \+1\.22 kΩ · 2\.7 % to res\.$/);
+    expect(on('stub lload')!.label).toMatch(/nH · X \+1\.2\d kΩ · 2\.7 % to res\.$/);
     expect(on('stub lload')!.tooltip).toContain('tolerance corners');
     expect(on('let f0')).toBeUndefined();
     // a range restricts the hints to its lines

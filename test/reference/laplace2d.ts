@@ -1,12 +1,18 @@
 /**
- * Reference 2-D quasi-static Laplace solver for zero-thickness strip conductors (tests only).
+ * Reference 2-D quasi-static Laplace solver for strip conductors (tests only).
  *
  * An independent numerical method used to check closed-form line models. It computes the
  * per-unit-length capacitance of one strip (potential 1) above a ground plane y = 0, inside a
- * rectangular box, with a dielectric slab filling 0 ≤ y ≤ dielectricTop:
+ * rectangular box, with a dielectric slab filling dielectricBottom ≤ y ≤ dielectricTop:
  *
- *   ∇·(ε ∇φ) = 0,  φ = 1 on the strip, φ = 0 on the ground plane, the top wall and (optionally)
- *   the side wall; ∂φ/∂x = 0 on the symmetry plane x = 0 through the strip centre (half domain).
+ *   ∇·(ε ∇φ) = 0,  φ = 1 on the strip, φ = 0 on the ground plane, the top wall, (optionally)
+ *   the side wall and (optionally) coplanar grounds beside the strip; ∂φ/∂x = 0 on the symmetry
+ *   plane x = 0 through the strip centre (half domain).
+ *
+ * The strip is of zero thickness unless `thickness` is given (then a rectangle of conductor
+ * nodes); coplanar grounds, when given, have the strip's thickness and run from `coplanarGroundX`
+ * to the side wall. Without these options the grid and the results are those of the original
+ * zero-thickness solver, bit for bit.
  *
  * Discretisation (finite volume, vertex centred, 5-point):
  * - Tensor-product non-uniform grid (see {@link buildAxis}): spacing proportional to the distance
@@ -39,10 +45,24 @@ export const C0 = 299_792_458;
 export interface CrossSection {
   /** Half the strip width. */
   halfWidth: number;
-  /** Height of the zero-thickness strip above the ground plane y = 0 (> 0). */
+  /** Height of the strip's lower face above the ground plane y = 0 (> 0). */
   stripY: number;
-  /** The dielectric fills 0 ≤ y ≤ dielectricTop across the whole box (0 for none). */
+  /** Strip thickness (default 0): the strip fills stripY ≤ y ≤ stripY + thickness. */
+  thickness?: number;
+  /**
+   * Coplanar ground conductors (default none): φ = 0 for x ≥ coplanarGroundX (> halfWidth) over
+   * the strip's y range, out to the side wall.
+   */
+  coplanarGroundX?: number;
+  /** The dielectric fills dielectricBottom ≤ y ≤ dielectricTop across the whole box (top 0 for none). */
   dielectricTop: number;
+  /** Lower face of the dielectric slab (default 0, on the ground plane). */
+  dielectricBottom?: number;
+  /**
+   * Length unit of the grid grading (default stripY): sNear and d0 of {@link GridParams} are
+   * multiples of it, and the core region reaches this far beyond the conductor edges.
+   */
+  gridLength?: number;
   /** Relative permittivity of the dielectric. */
   epsR: number;
   /** Height of the top wall, always at ground potential. */
@@ -57,9 +77,9 @@ export interface CrossSection {
 export interface GridParams {
   /** Spacing / distance-from-edge ratio near the strip edge (geometric grading ratio 1 + κ). */
   kappa: number;
-  /** Largest spacing inside the core region, in units of the strip height. */
+  /** Largest spacing inside the core region, in units of the grid length (default the strip height). */
   sNear: number;
-  /** Smallest spacing at the strip edge, in units of the strip height. */
+  /** Smallest spacing at the strip edge, in units of the grid length (default the strip height). */
   d0: number;
 }
 
@@ -159,30 +179,45 @@ export function solveCrossSection(
   grid: GridParams = DEFAULT_GRID,
 ): SolveResult {
   const { halfWidth: a, stripY: hs, dielectricTop, epsR, boxTop, boxHalfWidth, sideWall } = geometry;
+  const t = geometry.thickness ?? 0;
+  const gx = geometry.coplanarGroundX;
+  const dielectricBottom = geometry.dielectricBottom ?? 0;
+  const len = geometry.gridLength ?? hs;
+  if (!(t >= 0 && hs + t < boxTop)) throw new Error('the strip must lie below the top wall');
+  if (gx !== undefined && !(gx > a && gx < boxHalfWidth)) throw new Error('coplanar grounds must start between the strip edge and the side wall');
   const f = 2 ** -level;
-  const common = { kappa: grid.kappa * f, sNear: grid.sNear * hs * f, d0: grid.d0 * hs * f * f };
+  const common = { kappa: grid.kappa * f, sNear: grid.sNear * len * f, d0: grid.d0 * len * f * f };
   const xs = buildAxis({
-    keyPoints: [0, a, boxHalfWidth],
-    singular: a < boxHalfWidth ? [a] : [],
+    keyPoints: [0, a, boxHalfWidth, ...(gx !== undefined ? [gx] : [])],
+    singular: [...(a < boxHalfWidth ? [a] : []), ...(gx !== undefined ? [gx] : [])],
     coreLo: 0,
-    coreHi: a + hs,
+    coreHi: (gx ?? a) + len,
     ...common,
   });
   const ys = buildAxis({
-    keyPoints: [0, hs, boxTop, ...(dielectricTop > 0 ? [dielectricTop] : [])],
-    singular: a < boxHalfWidth ? [hs] : [],
-    coreLo: 0,
-    coreHi: 2 * hs,
+    keyPoints: [
+      0,
+      hs,
+      boxTop,
+      ...(dielectricTop > 0 ? [dielectricTop] : []),
+      ...(t > 0 ? [hs + t] : []),
+      ...(dielectricBottom > 0 ? [dielectricBottom] : []),
+    ],
+    singular: a < boxHalfWidth ? (t > 0 ? [hs, hs + t] : [hs]) : [],
+    coreLo: Math.max(0, hs - len),
+    coreHi: hs + t + len,
     ...common,
   });
   const nx = xs.length;
   const ny = ys.length;
   const n = nx * ny;
   const iEdge = nodeIndex(xs, a);
+  const iGround = gx !== undefined ? nodeIndex(xs, gx) : nx;
   const jStrip = nodeIndex(ys, hs);
+  const jTop = t > 0 ? nodeIndex(ys, hs + t) : jStrip;
 
   // Face couplings: cE[k] between nodes k and k+1, cN[k] between k and k+nx (zero past the ends).
-  const cellEps = (j: number): number => (ys[j + 1]! <= dielectricTop ? epsR : 1);
+  const cellEps = (j: number): number => (ys[j]! >= dielectricBottom && ys[j + 1]! <= dielectricTop ? epsR : 1);
   const cE = new Float64Array(n);
   const cN = new Float64Array(n);
   for (let j = 0; j < ny; j++) {
@@ -203,7 +238,7 @@ export function solveCrossSection(
     }
   }
 
-  // Fixed nodes: ground plane, top wall, side wall if grounded, and the strip (φ = 1).
+  // Fixed nodes: ground plane, top wall, side wall if grounded, coplanar grounds, and the strip (φ = 1).
   const fixedValue = new Float64Array(n);
   const free = new Uint8Array(n).fill(1);
   for (let i = 0; i < nx; i++) {
@@ -211,9 +246,12 @@ export function solveCrossSection(
     free[(ny - 1) * nx + i] = 0;
   }
   if (sideWall === 'ground') for (let j = 0; j < ny; j++) free[j * nx + nx - 1] = 0;
-  for (let i = 0; i <= iEdge; i++) {
-    free[jStrip * nx + i] = 0;
-    fixedValue[jStrip * nx + i] = 1;
+  for (let j = jStrip; j <= jTop; j++) {
+    for (let i = 0; i <= iEdge; i++) {
+      free[j * nx + i] = 0;
+      fixedValue[j * nx + i] = 1;
+    }
+    for (let i = iGround; i < nx; i++) free[j * nx + i] = 0;
   }
 
   // System A·φ = b over the free nodes; aE/aN keep only free–free couplings.
@@ -246,12 +284,14 @@ export function solveCrossSection(
     if (cE[k]! > 0) energy += cE[k]! * (phi[k + 1]! - phi[k]!) ** 2;
     if (cN[k]! > 0) energy += cN[k]! * (phi[k + nx]! - phi[k]!) ** 2;
   }
-  // Gauss: net flux out of the strip nodes.
+  // Gauss: net flux out of the strip nodes (faces between two strip nodes carry none).
   let charge = 0;
-  for (let i = 0; i <= iEdge; i++) {
-    const k = jStrip * nx + i;
-    charge += cE[k]! * (1 - phi[k + 1]!) + cN[k]! * (1 - phi[k + nx]!) + cN[k - nx]! * (1 - phi[k - nx]!);
-    if (i > 0) charge += cE[k - 1]! * (1 - phi[k - 1]!);
+  for (let j = jStrip; j <= jTop; j++) {
+    for (let i = 0; i <= iEdge; i++) {
+      const k = j * nx + i;
+      charge += cE[k]! * (1 - phi[k + 1]!) + cN[k]! * (1 - phi[k + nx]!) + cN[k - nx]! * (1 - phi[k - nx]!);
+      if (i > 0) charge += cE[k - 1]! * (1 - phi[k - 1]!);
+    }
   }
   return { capacitance: 2 * EPS0 * energy, capacitanceGauss: 2 * EPS0 * charge, nx, ny, iterations };
 }
@@ -390,18 +430,61 @@ export function microstripSection(wOverH: number, epsR: number, boxFactor = 200)
 
 /**
  * Symmetric stripline cross-section normalised to a ground-plane spacing b = 2: strip of width
- * w/b midway (y = 1) between grounds at y = 0 and y = 2, vacuum throughout, side wall (magnetic)
- * 10·b beyond the strip edge, where the field has decayed by about exp(−10π).
+ * w/b midway (centred on y = 1) between grounds at y = 0 and y = 2, vacuum throughout, side wall
+ * (magnetic) 10·b beyond the strip edge, where the field has decayed by about exp(−10π).
+ * With `tOverB` > 0 the strip is t thick, from y = 1 − t/b to y = 1 + t/b.
  */
-export function striplineSection(wOverB: number): CrossSection {
+export function striplineSection(wOverB: number, tOverB = 0): CrossSection {
   return {
     halfWidth: wOverB,
-    stripY: 1,
+    stripY: 1 - tOverB,
+    ...(tOverB > 0 ? { thickness: 2 * tOverB } : {}),
     dielectricTop: 0,
     epsR: 1,
     boxTop: 2,
     boxHalfWidth: wOverB + 20,
     sideWall: 'open',
+  };
+}
+
+/** Coplanar waveguide geometry for {@link coplanarSection}, normalised to the substrate height h. */
+export interface CoplanarSpec {
+  /** Centre strip width s/h. */
+  sOverH: number;
+  /** Slot width g/h on each side. */
+  gOverH: number;
+  epsR: number;
+  /** Metal thickness t/h (default 0), strip and coplanar grounds alike, on top of the substrate. */
+  tOverH?: number;
+  /** true: conductor-backed (ground plane right under the substrate); false: substrate in free space. */
+  grounded: boolean;
+  /** Box walls this many (s + 2g + h) away from the slots (default 50). */
+  boxFactor?: number;
+}
+
+/**
+ * Coplanar waveguide cross-section in units of h = 1: centre strip on top of a substrate slab of
+ * height 1, coplanar grounds from x = s/2 + g out to a grounded side wall. Conductor-backed: the
+ * slab sits on the ground plane y = 0. Without backing: the slab floats with its lower face
+ * `far` above the box floor, `far` = boxFactor·(s + 2g + 1), so the floor stands in for infinity.
+ */
+export function coplanarSection(spec: CoplanarSpec): CrossSection {
+  const { sOverH: s, gOverH: g, epsR, grounded } = spec;
+  const t = spec.tOverH ?? 0;
+  const far = (spec.boxFactor ?? 50) * (s + 2 * g + 1);
+  const bottom = grounded ? 0 : far;
+  return {
+    halfWidth: s / 2,
+    stripY: bottom + 1,
+    ...(t > 0 ? { thickness: t } : {}),
+    coplanarGroundX: s / 2 + g,
+    dielectricTop: bottom + 1,
+    ...(grounded ? {} : { dielectricBottom: bottom }),
+    gridLength: Math.min(1, s + 2 * g),
+    epsR,
+    boxTop: bottom + 1 + t + far,
+    boxHalfWidth: s / 2 + g + far,
+    sideWall: 'ground',
   };
 }
 

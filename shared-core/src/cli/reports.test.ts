@@ -18,7 +18,7 @@ describe('notes', () => {
     expect(entryNote(f0!)).toBeNull();
     expect(entryNote(core!)).toBeNull();
     expect(entryNote(feed!)).toMatch(/^# → w = 2\.2 mm · εeff 2\.10\d$/);
-    expect(entryNote(tune!)).toMatch(/^# → ℓ = 8\.12 mm · ≈ 0\.9 pF · X −72\.2 Ω$/);
+    expect(entryNote(tune!)).toMatch(/^# → ℓ = 7\.73 mm · ≈ 0\.9 pF · X −72\.2 Ω$/);
     expect(entryNote(feed!, { lengthUnit: 'mil' })).toMatch(/w = 86\.\d mil/);
     expect(entryNote(entry(0, 'line', 'broken', {}))).toBeNull();
   });

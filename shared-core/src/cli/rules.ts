@@ -19,6 +19,7 @@ export const RULE_DESCRIPTIONS: Readonly<Record<DiagnosticCode, string>> = {
   detuned: 'A stub that does not do at its frequency what its declaration says.',
   cycle: 'Declarations that depend on each other in a cycle.',
   limit: 'Input beyond a safety limit (sheet, line or expression size, nesting).',
+  power: 'High standing-wave voltage or current on a stub at the stated RF power: check breakdown, creepage and heating.',
 };
 
 /** Diagnostic codes in a fixed order (the SARIF rules array and `ruleIndex` follow it). */

@@ -43,24 +43,21 @@ function writeBack(entry: SheetEntry, doc: EvaluatedDocument): CodeAction[] {
   });
 }
 
-/** open(θ) = short(θ + 90°) and short(θ) = open(θ ± 90°) at the design frequency (lossless equivalence). */
+/** The opposite kind of stub with the same reactance at f (the evaluator's `swap_length_m`, end effects included). */
 function swapKind(entry: SheetEntry, doc: EvaluatedDocument): CodeAction[] {
   if (entry.kind !== 'stub') return [];
   const lineText = doc.lines[entry.line]!;
   const head = /:\s*(short|open)\b/.exec(lineText.slice(0, entry.range.end.character));
-  const length = num(entry.results, 'length_m');
-  const fraction = num(entry.results, 'wavelength_fraction');
-  if (!head || length === null || fraction === null || fraction <= 0) return [];
+  // via and end keys belong to one kind of stub: no swap offered for those lines.
+  if (!head || /(^|,)\s*(via|end)\b/.test(lineText)) return [];
   const from = head[1] as 'short' | 'open';
   const to = from === 'open' ? 'short' : 'open';
   const wordStart = head.index + head[0].length - from.length;
   const edits = [{ range: lineRange(entry.line, wordStart, wordStart + from.length), newText: to }];
-  const lambdaG = length / fraction;
+  const newLength = num(entry.results, 'swap_length_m');
   const lengthItem = /(^|,)\s*(length)\s+([^,#]+?)\s*(?=,|#|$)/.exec(lineText.slice(0, entry.range.end.character));
-  let newLength: number | null = null;
   if (lengthItem) {
-    const shorter = fraction > 0.25;
-    newLength = shorter ? length - lambdaG / 4 : length + lambdaG / 4;
+    if (newLength === null) return [];
     const valueStart = lengthItem.index + lengthItem[0].length - lengthItem[3]!.length;
     edits.push({ range: lineRange(entry.line, valueStart, valueStart + lengthItem[3]!.length), newText: gridLengthText(newLength, doc.settings) });
   } else if (!/(^|,)\s*(inductance|capacitance|reactance)\b/.test(lineText)) {

@@ -34,6 +34,8 @@ const ONE_PER_CODE = {
   detuned: `${IDEAL}\nstub c: short on l, length 30 mm, at 1 GHz, resonant`,
   cycle: 'let a = a + 1',
   limit: `let x = ${'('.repeat(41)}1${')'.repeat(41)}`,
+  // V_j = √(2·100 W·50 Ω) = 100 V; an open stub at 72° raises it to 100 V / cos 72° ≈ 324 V at its end.
+  power: `${IDEAL}\nstub p: open on l, length 30 mm, at 1 GHz, power 100 W`,
 } satisfies Record<DiagnosticCode, string>;
 
 describe('every pinned code', () => {
@@ -41,7 +43,7 @@ describe('every pinned code', () => {
     const d = only(text);
     expect(d.code).toBe(code);
     expect(d.slice.length).toBeGreaterThan(0);
-    const warning = ['model-validity', 'near-resonance', 'resonance-in-band', 'detuned'].includes(code);
+    const warning = ['model-validity', 'near-resonance', 'resonance-in-band', 'detuned', 'power'].includes(code);
     expect(d.severity).toBe(warning ? 'warning' : 'error');
   });
 });

@@ -10,7 +10,8 @@ export type ValueType =
   | { type: 'range'; quantity: QuantityKind }
   | { type: 'flag' }
   | { type: 'copper' }
-  | { type: 'count' };
+  | { type: 'count' }
+  | { type: 'choice'; options: readonly string[] };
 
 export interface KeySpec {
   value: ValueType;
@@ -55,6 +56,9 @@ export const STUB_KEYS: KeyTable = {
     band: { value: { type: 'range', quantity: 'frequency' }, doc: 'operating band, e.g. 2.4 GHz .. 2.5 GHz' },
     resonant: { value: { type: 'flag' }, doc: 'marks an intended resonance (bias choke, trap): being far from it is flagged' },
     solution: { value: { type: 'count' }, doc: 'which solution to synthesize: 1 is the shortest, 2 half a wave longer, …' },
+    via: { value: { type: 'quantity', quantity: 'length' }, doc: 'drill diameter of the via that makes the short; its inductance (Goldfarb–Pucel) is included' },
+    end: { value: { type: 'choice', options: ['corrected', 'ideal'] }, doc: 'open end: "corrected" (default) adds the microstrip open-end extension, "ideal" assumes a perfect open' },
+    power: { value: { type: 'quantity', quantity: 'power' }, doc: 'RF power at the stub\'s "at" frequency on the line it shunts: peak voltage and current on the stub are reported' },
   },
   required: [[...STUB_TARGETS], ['at']],
   exclusive: [[...STUB_TARGETS]],

@@ -31,7 +31,8 @@ export type DiagnosticCode =
   | 'resonance-in-band'
   | 'detuned'
   | 'cycle'
-  | 'limit';
+  | 'limit'
+  | 'power';
 
 export interface RelatedInformation {
   range: Range;

@@ -3,6 +3,7 @@
  * Stubs, which carry the resonance checks, are in stub.ts.
  */
 import { sigmaCopperAnnealed } from '../../engine/constants.js';
+import { lossBreakdownDb } from '../../engine/lineLoss.js';
 import { c0 } from '../../engine/constants.js';
 import { formatValue, quantityKind, toSI, type Value } from '../expr/index.js';
 import { formatQuantity } from '../format.js';
@@ -66,7 +67,10 @@ export function evalSubstrate(decl: ParsedDeclaration, scope: SheetScope): Outco
     !values.has('copper') || range('copper', copper >= 0 && copper < height * 10, 'copper thickness must be zero or positive (and thinner than ten board heights)'),
   ].every(Boolean);
   if (!valid) return finish(reader);
-  const substrate = { dk, dkTol: tol(values, 'dk'), df, heightM: height, heightTol: tol(values, 'height'), copperM: copper };
+  const substrate = {
+    dk, dkTol: tol(values, 'dk'), df, heightM: height, heightTol: tol(values, 'height'), copperM: copper,
+    conductivity: si(values, 'conductivity') ?? sigmaCopperAnnealed, roughnessM: si(values, 'roughness') ?? 0,
+  };
   return finish(reader, {
     substrate,
     results: { dk, df, height_m: height, copper_m: copper, conductivity_s_per_m: si(values, 'conductivity') ?? sigmaCopperAnnealed },
@@ -134,8 +138,14 @@ export function evalLine(decl: ParsedDeclaration, scope: SheetScope, resolved: R
   if (f !== undefined) {
     const at = build.model(f);
     const wavelength = c0 / (f * Math.sqrt(at.epsEff));
-    Object.assign(results, { frequency_hz: f, eps_eff_at_f: at.epsEff, z0_at_f_ohm: at.z0, wavelength_m: wavelength, loss_db_per_m: at.alpha * NEPER_TO_DB });
-    details.push(`at ${formatQuantity(f, 'frequency')}: Z0 ${formatQuantity(at.z0, 'impedance')}, εeff ${at.epsEff.toFixed(4)}, λg ${formatQuantity(wavelength, 'length')}, loss ${(at.alpha * NEPER_TO_DB).toPrecision(3)} dB/m (dielectric)`);
+    const loss = build.lossy ? lossBreakdownDb(build.lossy(f)) : { alphaCDbPerM: null, alphaDDbPerM: at.alpha * NEPER_TO_DB, alphaDbPerM: at.alpha * NEPER_TO_DB };
+    Object.assign(results, {
+      frequency_hz: f, eps_eff_at_f: at.epsEff, z0_at_f_ohm: at.z0, wavelength_m: wavelength, loss_db_per_m: loss.alphaDbPerM,
+      alpha_db_per_m: loss.alphaDbPerM, alpha_c_db_per_m: loss.alphaCDbPerM, alpha_d_db_per_m: loss.alphaDDbPerM,
+    });
+    const split = loss.alphaCDbPerM === null ? 'dielectric only' : `conductor ${loss.alphaCDbPerM.toPrecision(3)} + dielectric ${loss.alphaDDbPerM.toPrecision(3)}`;
+    details.push(`at ${formatQuantity(f, 'frequency')}: Z0 ${formatQuantity(at.z0, 'impedance')}, εeff ${at.epsEff.toFixed(4)}, λg ${formatQuantity(wavelength, 'length')}, loss ${loss.alphaDbPerM.toPrecision(3)} dB/m (${split})`);
+    if (build.lossNote) details.push(build.lossNote);
   }
   details.push(`model: ${build.modelName}`);
   const synthesized = build.synthesizedWidthM !== null

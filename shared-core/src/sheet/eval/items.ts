@@ -14,6 +14,7 @@ export interface ItemValue {
   range?: [number, number];
   flag?: true;
   count?: number;
+  choice?: string;
 }
 
 export type ItemValues = Map<string, ItemValue>;
@@ -86,6 +87,13 @@ function readOne(reader: ValueReader, table: KeyTable, key: string, item: Item):
       }
       const quantity = reader.quantity(span, 'length', key, false);
       return quantity ? { key, item, quantity } : null;
+    }
+    case 'choice': {
+      if (!spec.options.includes(span.text)) {
+        reader.error(span.start, span.end, 'syntax', `${key} is one of: ${spec.options.join(', ')}`);
+        return null;
+      }
+      return { key, item, choice: span.text };
     }
     case 'count': {
       const n = reader.quantity(span, 'dimensionless', key, false);

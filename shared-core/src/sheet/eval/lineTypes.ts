@@ -4,7 +4,8 @@
  * Builders throw RangeError for impossible geometry; the caller reports it as a `range` diagnostic.
  */
 import {
-  coaxLine, coaxNotes, coaxZ0, idealLine, microstripAt, microstripLine, microstripStatic, microstripWidthForZ0,
+  coaxLossyLine, coaxNotes, coaxZ0, idealLine, microstripAt, microstripLossyLine, microstripStatic, microstripWidthForZ0, openEndExtension,
+  sigmaCopperAnnealed, type LossyLineModel,
   type LineModel, type ValidityNote,
 } from '../../engine/index.js';
 import type { KeySpec, KeyTable } from '../schema.js';
@@ -17,10 +18,16 @@ export interface SubstrateValue {
   heightM: number;
   heightTol: number;
   copperM: number;
+  conductivity: number;
+  roughnessM: number;
 }
 
 export interface LineBuild {
   model: LineModel;
+  /** The same line with its loss split into conductor and dielectric parts, where modelled. */
+  lossy?: LossyLineModel;
+  /** Why conductor loss is not included, when it is not. */
+  lossNote?: string;
   /** Models used, for hovers and reports. */
   modelName: string;
   /** Static (or dispersion-free) Z0 and εeff. */
@@ -33,6 +40,10 @@ export interface LineBuild {
   notes(frequencyHz: number): ValidityNote[];
   /** Line models at every corner of the given tolerances (empty when there are none). */
   corners(): LineModel[];
+  /** Open-end length extension, where the line type has a published model for it. */
+  openEnd?: () => { extensionM: number; model: string; notes: ValidityNote[] };
+  /** Length of a via from the strip to ground, where the line sits on a board. */
+  viaHeightM?: number;
 }
 
 export interface LineTypeSpec {
@@ -71,9 +82,13 @@ const microstrip: LineTypeSpec = {
       : si(values, 'width')!;
     const geometry = { widthM, heightM: s.heightM, dk: s.dk, thicknessM };
     const stat = microstripStatic(geometry);
+    const conductor = thicknessM > 0 ? { conductivity: s.conductivity, roughnessM: s.roughnessM } : {};
+    const lossy = microstripLossyLine({ ...geometry, df: s.df, ...conductor });
     return {
-      model: microstripLine({ ...geometry, df: s.df }),
-      modelName: 'microstrip: Hammerstad–Jensen 1980 (Z0, εeff, strip thickness), Kirschning–Jansen 1982 (εeff(f)), Jansen–Kirschning 1983 (Z0(f)); dielectric loss only',
+      model: lossy,
+      lossy,
+      lossNote: thicknessM > 0 ? undefined : 'conductor loss needs the copper thickness: add "copper 35 um" (or "copper 1 oz") to the substrate',
+      modelName: `microstrip: Hammerstad–Jensen 1980 (Z0, εeff, strip thickness), Kirschning–Jansen 1982 (εeff(f)), Jansen–Kirschning 1983 (Z0(f)); ${thicknessM > 0 ? 'conductor loss by Wheeler\'s incremental-inductance rule with Hammerstad–Bekkadal roughness, dielectric loss from Df' : 'dielectric loss only'}`,
       z0: stat.z0,
       epsEff: stat.epsEff,
       widthM,
@@ -83,7 +98,9 @@ const microstrip: LineTypeSpec = {
         { nominal: s.dk, tol: s.dkTol },
         { nominal: s.heightM, tol: s.heightTol },
         { nominal: widthM, tol: tol(values, 'width') },
-      ]).map(([dk, h, w]) => microstripLine({ widthM: w!, heightM: h!, dk: dk!, thicknessM, df: s.df })),
+      ]).map(([dk, h, w]) => microstripLossyLine({ widthM: w!, heightM: h!, dk: dk!, thicknessM, df: s.df, ...conductor })),
+      openEnd: () => openEndExtension(geometry),
+      viaHeightM: s.heightM,
     };
   },
 };
@@ -125,6 +142,7 @@ const coax: LineTypeSpec = {
   keys: {
     keys: {
       inner: { value: { type: 'quantity', quantity: 'length' }, doc: 'outer diameter of the inner conductor' },
+      conductivity: { value: { type: 'quantity', quantity: 'conductivity' }, doc: 'conductor conductivity (default annealed copper, 5.8e7 S/m)' },
       outer: { value: { type: 'quantity', quantity: 'length' }, doc: 'inner diameter of the outer conductor' },
       dk: { value: { type: 'quantity', quantity: 'dimensionless', tolerance: true }, doc: 'relative permittivity of the fill (1 for air)', aliases: ['er'] },
       df: DF,
@@ -134,16 +152,21 @@ const coax: LineTypeSpec = {
     exclusive: [],
   },
   build(values) {
-    const spec = { innerDiameterM: si(values, 'inner')!, outerDiameterM: si(values, 'outer')!, dk: si(values, 'dk') ?? 1, df: si(values, 'df') ?? 0 };
+    const spec = {
+      innerDiameterM: si(values, 'inner')!, outerDiameterM: si(values, 'outer')!, dk: si(values, 'dk') ?? 1, df: si(values, 'df') ?? 0,
+      conductivity: si(values, 'conductivity') ?? sigmaCopperAnnealed,
+    };
+    const lossy = coaxLossyLine(spec);
     return {
-      model: coaxLine(spec),
-      modelName: 'coaxial line (exact TEM)',
+      model: lossy,
+      lossy,
+      modelName: 'coaxial line (exact TEM; exact conductor loss for smooth round conductors, dielectric loss from Df)',
       z0: coaxZ0(spec.innerDiameterM, spec.outerDiameterM, spec.dk),
       epsEff: spec.dk,
       widthM: null,
       synthesizedWidthM: null,
       notes: (f) => coaxNotes(spec, f),
-      corners: () => toleranceCorners([{ nominal: spec.dk, tol: tol(values, 'dk') }]).map(([dk]) => coaxLine({ ...spec, dk: dk! })),
+      corners: () => toleranceCorners([{ nominal: spec.dk, tol: tol(values, 'dk') }]).map(([dk]) => coaxLossyLine({ ...spec, dk: dk! })),
     };
   },
 };

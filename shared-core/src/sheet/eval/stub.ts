@@ -4,8 +4,8 @@
  * (near-resonance, resonance-in-band, detuned), taken at the worst tolerance corner.
  */
 import {
-  analyseBand, analyseStub, electricalLengthAt, nearestResonances, resonancesInRange, synthesizeStub,
-  type LineModel, type NearestResonances, type Resonance, type StubKind, type StubTarget,
+  analyseBand, analyseEndedStub, analyseStub, lossyStubImpedance, stubResonanceBandwidth, electricalLengthAt, nearestResonances, resonancesInRange, synthesizeEndedStub, synthesizeStub,
+  type LineModel, type NearestResonances, type Resonance, type StubEnd, type StubKind, type StubTarget,
 } from '../../engine/index.js';
 import { formatQuantity } from '../format.js';
 import type { LocalDiagnostic, ParsedDeclaration } from '../parse/lineParser.js';
@@ -13,6 +13,9 @@ import { STUB_KEYS, STUB_KINDS, STUB_TARGETS } from '../schema.js';
 import { finish, lookup, validityDiagnostics, type Resolved } from './declarations.js';
 import { readItems, si, tol, type ItemValues } from './items.js';
 import type { Outcome } from './outcome.js';
+import { powerStress } from './stubPower.js';
+import { resolveEnd } from './stubEnds.js';
+import type { LineBuild } from './lineTypes.js';
 import { ValueReader, type SheetScope } from './values.js';
 
 const quarterName = (n: number) => (n % 2 === 0 ? `${n / 2 === 1 ? '' : n / 2}λ/2` : `${n === 1 ? '' : n}λ/4`);
@@ -49,6 +52,8 @@ export function evalStub(decl: ParsedDeclaration, scope: SheetScope, resolved: R
     reader.error(atItem.value!.start, atItem.value!.end, 'range', 'the design frequency must be positive');
     return finish(reader);
   }
+  const ended = resolveEnd(kind, values, line, line.model(f), f, reader);
+  if (!ended) return finish(reader);
   const target = targetOf(values);
   const lengthKey = STUB_TARGETS.find((k) => values.has(k));
   if (!lengthKey) return finish(reader);
@@ -58,7 +63,7 @@ export function evalStub(decl: ParsedDeclaration, scope: SheetScope, resolved: R
   let lengthM: number;
   if (target) {
     try {
-      lengthM = synthesizeStub(kind, line.model, target, f, values.get('solution')?.count ?? 1).lengthM;
+      lengthM = synthesizeEndedStub(ended.end, line.model, target, f, values.get('solution')?.count ?? 1).drawnLengthM;
     } catch (e) {
       if (!(e instanceof RangeError)) throw e;
       reader.error(valueSpan.start, valueSpan.end, 'range', e.message);
@@ -71,19 +76,23 @@ export function evalStub(decl: ParsedDeclaration, scope: SheetScope, resolved: R
       return finish(reader);
     }
   }
-  const a = analyseStub(kind, line.model, lengthM, f);
-  const near = nearestResonances(kind, line.model, lengthM, f);
+  // Resonance searches work on the effective length: drawn + open-end extension or via equivalent.
+  const effectiveM = lengthM + ended.extraM;
+  const a = analyseEndedStub(ended.end, line.model, lengthM, f);
+  const near = nearestResonances(kind, line.model, effectiveM, f);
   const finite = (x: number) => (Number.isFinite(x) ? x : null);
   const results: Outcome['results'] = {
     length_m: lengthM, frequency_hz: f, electrical_deg: a.electricalDeg, wavelength_fraction: a.wavelengthFraction,
     reactance_ohm: finite(a.reactance), resistance_ohm: finite(a.resistance), inductance_h: a.inductance, capacitance_f: a.capacitance,
     behaviour: a.behaviour, resonance_below_hz: near.below?.frequencyHz ?? null, resonance_above_hz: near.above.frequencyHz,
     resonance_margin_pct: near.marginPct, resonance_nearest_hz: near.nearest.frequencyHz, resonant_intended: values.has('resonant'),
+    effective_length_m: effectiveM, guided_wavelength_m: a.guidedWavelengthM, end_extension_m: ended.endExtensionM, via_inductance_h: ended.viaInductanceH,
   };
   const lc = a.inductance !== null ? `≈ ${formatQuantity(a.inductance, 'inductance')}` : a.capacitance !== null ? `≈ ${formatQuantity(a.capacitance, 'capacitance')}` : 'neither an L nor a C here';
   const x = Math.abs(a.reactance) < 1e-9 * Math.max(1, Math.abs(a.resistance)) ? 0 : a.reactance;
   const details = [
-    `length ${formatQuantity(lengthM, 'length')}${target ? ' (synthesized)' : ''}; θ ${a.electricalDeg.toFixed(1)}° = ${a.wavelengthFraction.toFixed(4)} λg at ${formatQuantity(f, 'frequency')}`,
+    `length ${formatQuantity(lengthM, 'length')}${target ? ' (synthesized)' : ''}; effective θ ${a.electricalDeg.toFixed(1)}° = ${a.wavelengthFraction.toFixed(4)} λg at ${formatQuantity(f, 'frequency')}`,
+    ...ended.details,
     `Zin ${formatQuantity(a.resistance, 'resistance')} ${x >= 0 ? '+' : '−'} j${formatQuantity(Math.abs(x), 'impedance')}: ${a.behaviour}, ${lc}`,
     `nearest resonances: below ${near.below ? describe(near.below) : 'none'}; above ${describe(near.above)}; margin ${near.marginPct.toFixed(1)} %`,
   ];
@@ -91,9 +100,9 @@ export function evalStub(decl: ParsedDeclaration, scope: SheetScope, resolved: R
   // Tolerance corners: every line corner × length ± tolerance (the nominal case included).
   const lengthTol = target ? 0 : tol(values, 'length');
   const models: LineModel[] = [line.model, ...line.corners()];
-  const lengths = lengthTol > 0 ? [lengthM, lengthM - lengthTol, lengthM + lengthTol] : [lengthM];
+  const lengths = lengthTol > 0 ? [effectiveM, effectiveM - lengthTol, effectiveM + lengthTol] : [effectiveM];
   const corners = models.flatMap((m) => lengths.filter((l) => l > 0).map((l) => ({ m, l })));
-  const { worst, best, all } = cornerMargins(kind, models, lengthM, lengthTol, f);
+  const { worst, best, all } = cornerMargins(kind, models, effectiveM, lengthTol, f);
   const toleranced = corners.length > 1;
   if (toleranced) {
     details.push(`tolerance corners (${corners.length}): margin ${worst.marginPct.toFixed(1)} … ${best.marginPct.toFixed(1)} %`);
@@ -101,6 +110,12 @@ export function evalStub(decl: ParsedDeclaration, scope: SheetScope, resolved: R
   }
 
   const diagnostics: LocalDiagnostic[] = [...validityDiagnostics(line, f, atItem.value!)];
+  for (const message of ended.notes) {
+    const endKey = values.get('via')?.item ?? atItem;
+    diagnostics.push({ start: endKey.value!.start, end: endKey.value!.end, severity: 'warning', code: 'model-validity', message: `${message}: the end-effect model is used outside its published range` });
+  }
+  // Fix lengths are found on the effective length, then the end's extra length is taken off again.
+  const drawn = (effective: number | null) => (effective === null || effective - ended.extraM <= 0 ? null : effective - ended.extraM);
   const resonant = values.has('resonant');
   const related = [{ name: head.on.text, message: `the line ${head.on.text} sets Z0 and εeff` }];
   const cornerNote = toleranced ? ' at the worst tolerance corner' : '';
@@ -108,14 +123,14 @@ export function evalStub(decl: ParsedDeclaration, scope: SheetScope, resolved: R
     diagnostics.push({
       start: valueSpan.start, end: valueSpan.end, severity: 'warning', code: 'near-resonance', related,
       message: `${decl.name.text} is ${worst.marginPct.toFixed(1)} % from its ${describe(worst.nearest)}${cornerNote}, inside the ${marginPct} % margin: it no longer acts as a clean ${a.behaviour === 'capacitive' ? 'C' : 'L'}. Shorten or lengthen it, or mark it "resonant" if intended`,
-      ...(target ? {} : withLength(escapeLength(kind, models, lengthM, lengthTol, f, marginPct))),
+      ...(target ? {} : withLength(drawn(escapeLength(kind, models, effectiveM, lengthTol, f, marginPct)))),
     });
   }
   if (resonant && best.marginPct > marginPct) {
     diagnostics.push({
       start: valueSpan.start, end: valueSpan.end, severity: 'warning', code: 'detuned', related,
       message: `${decl.name.text} is marked resonant but its nearest resonance is ${best.marginPct.toFixed(1)} % away${cornerNote} (${describe(best.nearest)}), outside the ${marginPct} % margin: retune the length`,
-      ...(target ? {} : withLength(retuneLength(kind, line.model, f, best.nearest.quarterWaves))),
+      ...(target ? {} : withLength(drawn(retuneLength(kind, line.model, f, best.nearest.quarterWaves)))),
     });
   }
   const band = values.get('band')?.range;
@@ -127,7 +142,7 @@ export function evalStub(decl: ParsedDeclaration, scope: SheetScope, resolved: R
       message: `the band widened by the ${marginPct} % margin holds about ${bandCount < 1e6 ? Math.round(bandCount) : bandCount.toExponential(1)} resonances of this stub, more than ${MAX_BAND_RESONANCES} are not checked: check the length, its unit and the band`,
     });
   } else if (band) {
-    const b = analyseBand(kind, line.model, lengthM, band[0], band[1]);
+    const b = analyseBand(kind, line.model, effectiveM, band[0], band[1]);
     Object.assign(results, { band_min: b.min, band_max: b.max, band_spread_pct: b.spreadPct });
     if (b.quantity && b.spreadPct !== null) {
       details.push(`band ${formatQuantity(band[0], 'frequency')} … ${formatQuantity(band[1], 'frequency')}: ${b.quantity === 'inductance' ? 'L' : 'C'} ${formatQuantity(b.min, b.quantity)} … ${formatQuantity(b.max, b.quantity)} (spread ${b.spreadPct.toFixed(1)} %)`);
@@ -144,6 +159,13 @@ export function evalStub(decl: ParsedDeclaration, scope: SheetScope, resolved: R
       });
     }
   }
+  Object.assign(results, lossFigures(kind, line, a.reactance, effectiveM, f, near.nearest.quarterWaves, values.has('resonant')));
+  if (!target && Number.isFinite(a.reactance) && a.reactance !== 0) {
+    const swapped = swapLength(kind, line, a.reactance, f);
+    if (swapped !== null) results.swap_length_m = swapped;
+  }
+  const power = values.get('power');
+  if (power) diagnostics.push(...powerStress(results, power, ended, line, lengthM, f, a.zin, decl.name.text));
   details.push(`line ${head.on.text}: ${line.modelName}`);
   const synthesized = target ? [{ key: 'length', valueSI: lengthM, start: lengthItem.item.span.start, end: lengthItem.item.span.end }] : [];
   return finish(reader, { results, details, synthesized, diagnostics });
@@ -211,4 +233,39 @@ function retuneLength(kind: StubKind, model: LineModel, f: number, quarterWaves:
   } catch {
     return null;
   }
+}
+
+/**
+ * Drawn length of the opposite kind of stub (open ↔ short, ideal short, corrected open end) with the
+ * same reactance at f: the shortest solution. Null where it cannot be reached.
+ */
+function swapLength(kind: StubKind, line: LineBuild, reactance: number, f: number): number | null {
+  const end: StubEnd = kind === 'short' ? { kind: 'open', extensionM: line.openEnd?.().extensionM ?? 0 } : { kind: 'short' };
+  try {
+    return synthesizeEndedStub(end, line.model, { kind: 'reactance', ohms: reactance }, f).drawnLengthM;
+  } catch {
+    return null;
+  }
+}
+
+/**
+ * Loss figures: the series resistance from the line's R′L′G′C′ (complex Z0, which the real-Z0 form
+ * underestimates away from resonance), the element Q = |X|/R, and for an intended resonance its
+ * resonator Q and 3 dB bandwidth. Lines without a loss split keep the real-Z0 resistance.
+ */
+function lossFigures(kind: StubKind, line: LineBuild, reactance: number, effectiveM: number, f: number, quarterWaves: number, resonant: boolean): Outcome['results'] {
+  const out: Outcome['results'] = {};
+  if (line.lossy && line.lossy(f).alpha > 0) {
+    const z = lossyStubImpedance(kind, line.lossy(f), effectiveM, f);
+    if (Number.isFinite(z.re) && z.re > 0) {
+      out.resistance_ohm = z.re;
+      out.q = Number.isFinite(reactance) ? Math.abs(reactance) / z.re : null;
+    }
+  }
+  if (resonant && line.model(f).alpha > 0) {
+    const r = stubResonanceBandwidth(kind, line.model, effectiveM, quarterWaves);
+    out.resonator_q = r.q;
+    out.bandwidth_hz = r.bandwidthHz;
+  }
+  return out;
 }

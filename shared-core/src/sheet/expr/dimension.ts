@@ -13,9 +13,9 @@ import type { NameRef, Value } from './types.js';
 /** Kinds of quantity the sheet keys ask for. */
 export type QuantityKind =
   | 'length' | 'frequency' | 'impedance' | 'inductance' | 'capacitance' | 'angle'
-  | 'dimensionless' | 'conductivity' | 'other';
+  | 'dimensionless' | 'conductivity' | 'power' | 'other';
 
-/** Dimension exponents per kind (m; s⁻¹; kg·m²·s⁻³·A⁻²; kg·m²·s⁻²·A⁻²; kg⁻¹·m⁻²·s⁴·A²; rad; 1; S/m). */
+/** Dimension exponents per kind (m; s⁻¹; kg·m²·s⁻³·A⁻²; kg·m²·s⁻²·A⁻²; kg⁻¹·m⁻²·s⁴·A²; rad; S/m; W; 1). */
 const DIMENSIONS: ReadonlyArray<readonly [QuantityKind, readonly number[]]> = Object.freeze([
   ['length', [0, 1, 0, 0, 0, 0, 0, 0, 0]],
   ['frequency', [0, 0, -1, 0, 0, 0, 0, 0, 0]],
@@ -24,13 +24,14 @@ const DIMENSIONS: ReadonlyArray<readonly [QuantityKind, readonly number[]]> = Ob
   ['capacitance', [-1, -2, 4, 2, 0, 0, 0, 0, 0]],
   ['angle', [0, 0, 0, 0, 0, 0, 0, 1, 0]],
   ['conductivity', [-1, -3, 3, 2, 0, 0, 0, 0, 0]],
+  ['power', [1, 2, -3, 0, 0, 0, 0, 0, 0]],
   ['dimensionless', [0, 0, 0, 0, 0, 0, 0, 0, 0]],
 ] as const);
 
 const ARTICLE: Readonly<Record<QuantityKind, string>> = Object.freeze({
   length: 'a length', frequency: 'a frequency', impedance: 'an impedance', inductance: 'an inductance',
   capacitance: 'a capacitance', angle: 'an angle', dimensionless: 'a plain number',
-  conductivity: 'a conductivity', other: 'a quantity',
+  conductivity: 'a conductivity', power: 'a power', other: 'a quantity',
 });
 
 /** The quantity kind of a value; plain numbers and unit ratios such as `mm/mm` are `dimensionless`. */
