@@ -128,7 +128,7 @@ describe('completion', () => {
   it('offers line types, stub kinds and names of the right kind after "on"', () => {
     const base = `${tour}\n`;
     const n = base.split('\n').length - 1;
-    expect(labels(`${base}line x: `, n, 8)).toEqual(['microstrip', 'ideal', 'coax']);
+    expect(labels(`${base}line x: `, n, 8)).toEqual(['microstrip', 'stripline', 'cpw', 'gcpw', 'ideal', 'coax']);
     expect(labels(`${base}stub y: `, n, 8)).toEqual(['short', 'open']);
     expect(labels(`${base}stub y: open on `, n, 16)).toEqual(['feed', 'thin', 'hairline']);
     expect(labels(`${base}line x: microstrip on `, n, 22)).toEqual(['board']);

@@ -68,9 +68,9 @@ describe('syntax', () => {
   });
 
   it('an unknown line type', () => {
-    const d = only('line l: stripline, z0 50 ohm');
-    expect(at(d)).toEqual(['syntax', 0, 8, 17, 'stripline']);
-    expect(d.message).toMatch(/expected one of: microstrip, ideal, coax/);
+    const d = only('line l: slotline, z0 50 ohm');
+    expect(at(d)).toEqual(['syntax', 0, 8, 16, 'slotline']);
+    expect(d.message).toMatch(/expected one of: microstrip, stripline, cpw, gcpw, ideal, coax/);
   });
 
   it('a stub that is neither short nor open', () => {

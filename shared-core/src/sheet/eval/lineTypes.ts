@@ -6,6 +6,8 @@
 import {
   coaxLossyLine, coaxNotes, coaxZ0, idealLine, microstripAt, microstripLossyLine, microstripStatic, microstripWidthForZ0, openEndExtension,
   sigmaCopperAnnealed, type LossyLineModel,
+  coplanarLine, coplanarStatic, coplanarWidthForZ0, striplineLine, striplineStatic, striplineWidthForZ0,
+  wheelerAirImpedanceSlope, wheelerResistance, withConductorLoss,
   type LineModel, type ValidityNote,
 } from '../../engine/index.js';
 import type { KeySpec, KeyTable } from '../schema.js';
@@ -171,5 +173,89 @@ const coax: LineTypeSpec = {
   },
 };
 
+const WIDTH_OR_Z0 = {
+  width: { value: { type: 'quantity', quantity: 'length', tolerance: true }, doc: 'strip width (analysis)' },
+  z0: { value: { type: 'quantity', quantity: 'impedance' }, doc: 'target impedance: the width is synthesized' },
+} as const satisfies Record<string, KeySpec>;
+
+/**
+ * Symmetric stripline: `height` of the substrate is the ground-to-ground spacing b. Conductor loss
+ * by Wheeler's incremental-inductance rule on the same static model (needs the copper thickness).
+ */
+const stripline: LineTypeSpec = {
+  needsSubstrate: true,
+  keys: { keys: { ...WIDTH_OR_Z0, at: AT }, required: [['width', 'z0']], exclusive: [['width', 'z0']] },
+  build(values, sub) {
+    const s = sub!;
+    const t = s.copperM;
+    const target = si(values, 'z0');
+    const widthM = target !== undefined ? striplineWidthForZ0({ z0: target, heightM: s.heightM, dk: s.dk, thicknessM: t }).widthM : si(values, 'width')!;
+    const geometry = { widthM, heightM: s.heightM, dk: s.dk, thicknessM: t };
+    const stat = striplineStatic(geometry);
+    const make = (g: typeof geometry): LossyLineModel => {
+      const base = striplineLine({ ...g, df: s.df });
+      if (!(t > 0)) return withConductorLoss(base, () => 0);
+      const z0 = striplineStatic(g).z0;
+      const slope = wheelerAirImpedanceSlope((n) => striplineStatic({ widthM: g.widthM - 2 * n, heightM: g.heightM + 2 * n, dk: 1, thicknessM: t - 2 * n }).z0, 0.005 * Math.min(g.widthM, t));
+      return withConductorLoss(base, (f) => (f > 0 ? wheelerResistance(slope, f, { conductivity: s.conductivity, roughnessM: s.roughnessM }) / (2 * z0) : 0));
+    };
+    const lossy = make(geometry);
+    return {
+      model: lossy,
+      lossy,
+      lossNote: t > 0 ? undefined : 'conductor loss needs the copper thickness: add "copper 35 um" (or "copper 1 oz") to the substrate',
+      modelName: `stripline: Cohn 1954 (exact, zero thickness) with Wheeler 1978 thickness correction; ${t > 0 ? 'conductor loss by Wheeler\'s incremental-inductance rule, ' : ''}dielectric loss from Df; no dispersion (TEM)`,
+      z0: stat.z0,
+      epsEff: stat.epsEff,
+      widthM,
+      synthesizedWidthM: target !== undefined ? widthM : null,
+      notes: () => stat.notes,
+      corners: () => toleranceCorners([
+        { nominal: s.dk, tol: s.dkTol },
+        { nominal: s.heightM, tol: s.heightTol },
+        { nominal: widthM, tol: tol(values, 'width') },
+      ]).map(([dk, h, w]) => make({ widthM: w!, heightM: h!, dk: dk!, thicknessM: t })),
+      viaHeightM: s.heightM / 2,
+    };
+  },
+};
+
+/** Coplanar waveguide on a substrate (`cpw`), or conductor-backed (`gcpw`): `width` (or `z0`) and `gap`. */
+function coplanar(grounded: boolean): LineTypeSpec {
+  return {
+    needsSubstrate: true,
+    keys: {
+      keys: { ...WIDTH_OR_Z0, gap: { value: { type: 'quantity', quantity: 'length' }, doc: 'slot width between the strip and the side grounds' }, at: AT },
+      required: [['width', 'z0'], ['gap']],
+      exclusive: [['width', 'z0']],
+    },
+    build(values, sub) {
+      const s = sub!;
+      const gapM = si(values, 'gap')!;
+      const target = si(values, 'z0');
+      const base = { gapM, heightM: s.heightM, dk: s.dk, thicknessM: s.copperM, grounded };
+      const widthM = target !== undefined ? coplanarWidthForZ0({ ...base, z0: target }).widthM : si(values, 'width')!;
+      const geometry = { ...base, widthM };
+      const stat = coplanarStatic(geometry);
+      return {
+        model: coplanarLine({ ...geometry, df: s.df }),
+        lossNote: 'conductor loss is not modelled for coplanar lines yet (dielectric loss only)',
+        modelName: `${grounded ? 'grounded coplanar waveguide' : 'coplanar waveguide'}: conformal mapping (Wen 1969; finite substrate${grounded ? ' and lower ground' : ''} after Ghione–Naldi), zero strip thickness; dielectric loss only; no dispersion (quasi-static)`,
+        z0: stat.z0,
+        epsEff: stat.epsEff,
+        widthM,
+        synthesizedWidthM: target !== undefined ? widthM : null,
+        notes: () => stat.notes,
+        corners: () => toleranceCorners([
+          { nominal: s.dk, tol: s.dkTol },
+          { nominal: s.heightM, tol: s.heightTol },
+          { nominal: widthM, tol: tol(values, 'width') },
+        ]).map(([dk, h, w]) => coplanarLine({ ...geometry, widthM: w!, heightM: h!, dk: dk!, df: s.df })),
+        viaHeightM: s.heightM,
+      };
+    },
+  };
+}
+
 /** The line-type table. */
-export const LINE_TYPES: Record<string, LineTypeSpec> = { microstrip, ideal, coax };
+export const LINE_TYPES: Record<string, LineTypeSpec> = { microstrip, stripline, cpw: coplanar(false), gcpw: coplanar(true), ideal, coax };

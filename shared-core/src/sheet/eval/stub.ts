@@ -109,7 +109,9 @@ export function evalStub(decl: ParsedDeclaration, scope: SheetScope, resolved: R
     Object.assign(results, cornerRanges(kind, corners, f, all));
   }
 
-  const diagnostics: LocalDiagnostic[] = [...validityDiagnostics(line, f, atItem.value!)];
+  // Only what changes with frequency: the line's static notes are already shown on the line.
+  const staticNotes = new Set(validityDiagnostics(line, 0, atItem.value!).map((d) => d.message));
+  const diagnostics: LocalDiagnostic[] = validityDiagnostics(line, f, atItem.value!).filter((d) => !staticNotes.has(d.message));
   for (const message of ended.notes) {
     const endKey = values.get('via')?.item ?? atItem;
     diagnostics.push({ start: endKey.value!.start, end: endKey.value!.end, severity: 'warning', code: 'model-validity', message: `${message}: the end-effect model is used outside its published range` });
