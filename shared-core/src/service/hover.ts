@@ -54,10 +54,12 @@ function summary(entry: SheetEntry, doc: EvaluatedDocument): string {
     rows.push(row('Z0 (static)', show('z0_ohm', 'impedance') + spread('z0_ohm', 'impedance')), row('εeff (static)', num(r, 'eps_eff')!.toFixed(4)));
     if (num(r, 'width_m') !== null) rows.push(row('width', show('width_m', 'length') + synth('width')));
     if (num(r, 'frequency_hz') !== null) {
+      const c = num(r, 'alpha_c_db_per_m');
+      const split = c === null ? 'dielectric only' : `conductor ${c.toPrecision(3)} + dielectric ${num(r, 'alpha_d_db_per_m')!.toPrecision(3)}`;
       rows.push(
         row(`at ${show('frequency_hz', 'frequency')}`, `Z0 ${show('z0_at_f_ohm', 'impedance')}, εeff ${num(r, 'eps_eff_at_f')!.toFixed(4)}`),
         row('guided wavelength λg', show('wavelength_m', 'length')),
-        row('loss (dielectric)', `${num(r, 'loss_db_per_m')!.toPrecision(3)} dB/m`),
+        row('loss', `${num(r, 'alpha_db_per_m')!.toPrecision(3)} dB/m (${split})`),
       );
     }
   } else if (entry.kind === 'stub' && num(r, 'length_m') !== null) {
@@ -72,6 +74,15 @@ function summary(entry: SheetEntry, doc: EvaluatedDocument): string {
       row('resonance below / above', `${show('resonance_below_hz', 'frequency')} / ${show('resonance_above_hz', 'frequency')}`),
       row('margin to nearest', `${margin.toFixed(1)} %${spread('resonance_margin_pct', 'percent')} (warning below ${doc.settings.marginPct} %)`),
     );
+    if (num(r, 'q') !== null) rows.push(row('Q as an L or C (X / R)', num(r, 'q')!.toPrecision(3)));
+    if (num(r, 'bandwidth_hz') !== null) {
+      rows.push(row('resonator Q · 3 dB bandwidth', `${num(r, 'resonator_q')!.toPrecision(3)} · ${show('bandwidth_hz', 'frequency')}`));
+    }
+    if (num(r, 'end_extension_m') !== null) rows.push(row('open-end extension', `+${show('end_extension_m', 'length')} (effective ${show('effective_length_m', 'length')})`));
+    if (num(r, 'via_inductance_h') !== null) rows.push(row('via inductance', `${show('via_inductance_h', 'inductance')} (effective ${show('effective_length_m', 'length')})`));
+    if (num(r, 'power_w') !== null) {
+      rows.push(row(`at ${formatQuantity(num(r, 'power_w'), 'ratio')} W`, `peak ${formatQuantity(num(r, 'voltage_peak_v'), 'ratio')} V, ${formatQuantity(num(r, 'current_peak_a'), 'ratio')} A on the stub (estimate: confirm by measurement)`));
+    }
     if (num(r, 'band_spread_pct') !== null) {
       const q = num(r, 'inductance_h') !== null ? 'inductance' : 'capacitance';
       rows.push(row('across the band', `${formatQuantity(num(r, 'band_min'), q)} … ${formatQuantity(num(r, 'band_max'), q)} (spread ${num(r, 'band_spread_pct')!.toFixed(1)} %)`));

@@ -1,3 +1,4 @@
+import fc from 'fast-check';
 /**
  * Results of a sheet: the pinned JSON keys per entry kind, values checked against closed forms,
  * synthesis reproducing its target, scoping rules, tolerance corners, and the example sheets.
@@ -330,5 +331,30 @@ describe('the example sheets', () => {
     expect(ds.find((d) => d.code === 'detuned')).toMatchObject({ line: lineOf('stub choke'), slice: '19.8 mm' });
     expect(ds.find((d) => d.code === 'near-resonance')).toMatchObject({ line: lineOf('stub lload'), slice: '20.5 mm' });
     expect(ds.find((d) => d.code === 'resonance-in-band')).toMatchObject({ line: lineOf('stub edge'), slice: 'band' });
+  });
+});
+
+describe('tolerances and loss, as properties', () => {
+  const sheetWith = (dkTol: number, df: number) => [
+    `substrate b: dk 3.5 ± ${dkTol}, df ${df}, height 0.8 mm, copper 35 um`,
+    'line l: microstrip on b, width 1.7 mm',
+    'stub s: open on l, length 6 mm, at 2.45 GHz',
+  ].join('\n');
+  const stub = (text: string) => evaluateSheet(text).entries.find((e) => e.name === 's')!.results;
+
+  it('a wider tolerance gives a wider range of C and of the nearest resonance', () => {
+    fc.assert(fc.property(fc.double({ min: 0.01, max: 0.2, noNaN: true }), fc.double({ min: 1.2, max: 3, noNaN: true }), (tolA, factor) => {
+      const narrow = stub(sheetWith(tolA, 0.002));
+      const wide = stub(sheetWith(tolA * factor, 0.002));
+      const spread = (r: typeof narrow, k: string) => (r[`${k}_max`] as number) - (r[`${k}_min`] as number);
+      expect(spread(wide, 'capacitance_f')).toBeGreaterThan(spread(narrow, 'capacitance_f'));
+      expect(spread(wide, 'resonance_nearest_hz')).toBeGreaterThan(spread(narrow, 'resonance_nearest_hz'));
+    }), { numRuns: 15 });
+  });
+
+  it('more dielectric loss gives a lower stub Q', () => {
+    fc.assert(fc.property(fc.double({ min: 0.0005, max: 0.01, noNaN: true }), fc.double({ min: 1.5, max: 5, noNaN: true }), (df, factor) => {
+      expect(stub(sheetWith(0.05, df * factor)).q as number).toBeLessThan(stub(sheetWith(0.05, df)).q as number);
+    }), { numRuns: 15 });
   });
 });
