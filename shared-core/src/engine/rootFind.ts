@@ -44,3 +44,19 @@ export function findRoot(g: (x: number) => number, lo: number, hi: number, opts:
   return (a + b) / 2;
 }
 
+
+/**
+ * Solves a decreasing g on [lo, hi] (g(lo) ≥ 0 ≥ g(hi)), first narrowing the bracket to
+ * start·(1 ± rel) when a good closed-form start is known, which saves most iterations.
+ */
+export function findRootNearStart(g: (x: number) => number, lo: number, hi: number, start: number, rel = 0.05, opts: RootOptions = {}): number {
+  let [a, b] = [lo, hi];
+  if (Number.isFinite(start) && start > lo && start < hi) {
+    const [sLo, sHi] = [Math.max(start / (1 + rel), lo), Math.min(start * (1 + rel), hi)];
+    const [gsLo, gsHi] = [g(sLo), g(sHi)];
+    if (gsLo >= 0 && gsHi <= 0) [a, b] = [sLo, sHi];
+    else if (gsLo < 0) b = sLo;
+    else a = sHi;
+  }
+  return findRoot(g, a, b, opts);
+}

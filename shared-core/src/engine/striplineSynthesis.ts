@@ -12,7 +12,7 @@
  */
 import { eta0 } from './constants.js';
 import { checkPositiveInput } from './microstripStatic.js';
-import { findRoot } from './rootFind.js';
+import { findRootNearStart } from './rootFind.js';
 import { striplineStatic, validateStriplineGeometry, wheelerStriplineWidthRatio } from './striplineStatic.js';
 import type { ValidityNote } from './types.js';
 
@@ -82,15 +82,8 @@ export function striplineWidthForZ0(input: StriplineSynthesisInput): StriplineSy
     );
   }
   const u0 = closedFormStriplineWidthRatio(z0, dk, thicknessM / heightM);
-  let [a, b] = [lo, hi];
-  if (Number.isFinite(u0) && u0 > lo && u0 < hi) {
-    const [sLo, sHi] = [Math.max(u0 / 1.05, lo), Math.min(u0 * 1.05, hi)];
-    const [gsLo, gsHi] = [g(sLo), g(sHi)];
-    if (gsLo >= 0 && gsHi <= 0) [a, b] = [sLo, sHi];
-    else if (gsLo < 0) b = sLo;
-    else a = sHi;
-  }
-  const u = findRoot(g, a, b, { relTol: 1e-14 });
+  // The closed-form start is usually good to ~1 %: bracket it within ±5 % first.
+  const u = findRootNearStart(g, lo, hi, u0, 0.05, { relTol: 1e-14 });
   const result = at(u);
   return {
     widthM: u * heightM,

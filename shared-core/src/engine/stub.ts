@@ -89,25 +89,34 @@ export function analyseStub(kind: StubKind, lineModel: LineModel, lengthM: numbe
     const series = (kind === 'short') === (n % 2 === 0);
     zin = series ? complex(0, 0) : complex(0, Infinity);
   }
-  const reactance = zin.im;
-  const omega = 2 * Math.PI * frequencyHz;
-  // At or very near a resonance of a lossy stub |X| ≤ R: the stub is then more resistor than reactor
-  // (its Q as an L or C is below 1) and no equivalent L or C is reported.
-  const finite = Number.isFinite(reactance) && !onResonance && reactance !== 0 && Math.abs(reactance) > Math.abs(zin.re);
   return {
     kind,
     lengthM,
     frequencyHz,
     line,
+    ...reactiveEquivalent(zin, frequencyHz, onResonance),
+    electricalDeg: (theta * 180) / Math.PI,
+    wavelengthFraction: lengthM / lambdaG,
+    guidedWavelengthM: lambdaG,
+  };
+}
+
+/**
+ * Zin read as a reactive element: X, R, the equivalent L = X/ω or C = −1/(ωX), and the behaviour.
+ * At or very near a resonance of a lossy stub |X| ≤ R: the stub is then more resistor than reactor
+ * (its Q as an L or C is below 1) and no equivalent L or C is reported.
+ */
+export function reactiveEquivalent(zin: Complex, frequencyHz: number, onResonance = false) {
+  const reactance = zin.im;
+  const omega = 2 * Math.PI * frequencyHz;
+  const finite = Number.isFinite(reactance) && !onResonance && reactance !== 0 && Math.abs(reactance) > Math.abs(zin.re);
+  return {
     zin,
     reactance,
     resistance: zin.re,
     inductance: finite && reactance > 0 ? reactance / omega : null,
     capacitance: finite && reactance < 0 ? -1 / (omega * reactance) : null,
-    electricalDeg: (theta * 180) / Math.PI,
-    wavelengthFraction: lengthM / lambdaG,
-    guidedWavelengthM: lambdaG,
-    behaviour: !finite ? 'resonant' : reactance > 0 ? 'inductive' : 'capacitive',
+    behaviour: (!finite ? 'resonant' : reactance > 0 ? 'inductive' : 'capacitive') as Behaviour,
   };
 }
 

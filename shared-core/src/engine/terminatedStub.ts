@@ -18,7 +18,7 @@
  */
 import { type Complex, cabs, cadd, ccoth, cdiv, cmul, complex, ctanh } from './complex.js';
 import { checkPositiveInput } from './microstripStatic.js';
-import { analyseStub, guidedWavelength, phaseConstant, propagationConstant, type StubAnalysis, stubInputImpedance } from './stub.js';
+import { analyseStub, guidedWavelength, phaseConstant, propagationConstant, type StubAnalysis, stubInputImpedance, reactiveEquivalent } from './stub.js';
 import type { LineAtFrequency, LineModel } from './types.js';
 
 /** A load impedance, Ω: a complex number, a real number, or Infinity for an open circuit. */
@@ -123,9 +123,6 @@ export function analyseEndedStub(end: StubEnd, lineModel: LineModel, drawnLength
     return { ...rest, end, drawnLengthM, equivalentLengthM };
   }
   const zin = endedStubInputImpedance(end, line, drawnLengthM, frequencyHz);
-  const omega = 2 * Math.PI * frequencyHz;
-  const reactance = zin.im;
-  const finite = Number.isFinite(reactance) && reactance !== 0 && Math.abs(reactance) > Math.abs(zin.re);
   const lambdaG = guidedWavelength(line.epsEff, frequencyHz);
   return {
     end,
@@ -133,14 +130,9 @@ export function analyseEndedStub(end: StubEnd, lineModel: LineModel, drawnLength
     equivalentLengthM,
     frequencyHz,
     line,
-    zin,
-    reactance,
-    resistance: zin.re,
-    inductance: finite && reactance > 0 ? reactance / omega : null,
-    capacitance: finite && reactance < 0 ? -1 / (omega * reactance) : null,
+    ...reactiveEquivalent(zin, frequencyHz),
     electricalDeg: (phaseConstant(line.epsEff, frequencyHz) * equivalentLengthM * 180) / Math.PI,
     wavelengthFraction: equivalentLengthM / lambdaG,
     guidedWavelengthM: lambdaG,
-    behaviour: !finite ? 'resonant' : reactance > 0 ? 'inductive' : 'capacitive',
   };
 }

@@ -64,6 +64,15 @@ export function toleranceCorners(params: { nominal: number; tol: number }[]): nu
   return varying.reduce<number[][]>((acc, options) => acc.flatMap((c) => options.map((o) => [...c, o])), [[]]);
 }
 
+/** Line models at every corner of the board's dk and height tolerances and the width's. */
+function boardCorners(s: SubstrateValue, widthM: number, widthTol: number, make: (dk: number, h: number, w: number) => LineModel): LineModel[] {
+  return toleranceCorners([
+    { nominal: s.dk, tol: s.dkTol },
+    { nominal: s.heightM, tol: s.heightTol },
+    { nominal: widthM, tol: widthTol },
+  ]).map(([dk, h, w]) => make(dk!, h!, w!));
+}
+
 const microstrip: LineTypeSpec = {
   needsSubstrate: true,
   keys: {
@@ -96,11 +105,7 @@ const microstrip: LineTypeSpec = {
       widthM,
       synthesizedWidthM: target !== undefined ? widthM : null,
       notes: (f) => (f > 0 ? microstripAt(geometry, f).notes : stat.notes),
-      corners: () => toleranceCorners([
-        { nominal: s.dk, tol: s.dkTol },
-        { nominal: s.heightM, tol: s.heightTol },
-        { nominal: widthM, tol: tol(values, 'width') },
-      ]).map(([dk, h, w]) => microstripLossyLine({ widthM: w!, heightM: h!, dk: dk!, thicknessM, df: s.df, ...conductor })),
+      corners: () => boardCorners(s, widthM, tol(values, 'width'), (dk, h, w) => microstripLossyLine({ widthM: w, heightM: h, dk, thicknessM, df: s.df, ...conductor })),
       openEnd: () => openEndExtension(geometry),
       viaHeightM: s.heightM,
     };
@@ -210,11 +215,7 @@ const stripline: LineTypeSpec = {
       widthM,
       synthesizedWidthM: target !== undefined ? widthM : null,
       notes: () => stat.notes,
-      corners: () => toleranceCorners([
-        { nominal: s.dk, tol: s.dkTol },
-        { nominal: s.heightM, tol: s.heightTol },
-        { nominal: widthM, tol: tol(values, 'width') },
-      ]).map(([dk, h, w]) => make({ widthM: w!, heightM: h!, dk: dk!, thicknessM: t })),
+      corners: () => boardCorners(s, widthM, tol(values, 'width'), (dk, h, w) => make({ widthM: w, heightM: h, dk, thicknessM: t })),
       viaHeightM: s.heightM / 2,
     };
   },
@@ -246,11 +247,7 @@ function coplanar(grounded: boolean): LineTypeSpec {
         widthM,
         synthesizedWidthM: target !== undefined ? widthM : null,
         notes: () => stat.notes,
-        corners: () => toleranceCorners([
-          { nominal: s.dk, tol: s.dkTol },
-          { nominal: s.heightM, tol: s.heightTol },
-          { nominal: widthM, tol: tol(values, 'width') },
-        ]).map(([dk, h, w]) => coplanarLine({ ...geometry, widthM: w!, heightM: h!, dk: dk!, df: s.df })),
+        corners: () => boardCorners(s, widthM, tol(values, 'width'), (dk, h, w) => coplanarLine({ ...geometry, widthM: w, heightM: h, dk, df: s.df })),
         viaHeightM: s.heightM,
       };
     },
