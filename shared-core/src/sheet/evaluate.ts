@@ -22,10 +22,14 @@ interface CachedOutcome {
   stamp: number;
   /** Stamp of every name read at evaluation time (negative: not evaluated yet, see UNEVALUATED). */
   readStamps: Map<string, number>;
+  /** The assembled entry for the line it last stood on (reused while it stays there). */
+  view?: SheetEntry;
 }
 
 interface Cache {
   math: SafeMath;
+  /** Names each let value text mentions (for the dependency order), per value text. */
+  letReads?: Map<string, string[]>;
   compiled: Map<string, CompileResult>;
   parsed: Map<string, ParsedLine>;
   outcomes: Map<string, CachedOutcome>;
@@ -97,6 +101,7 @@ export function evaluateSheet(text: string, previous?: SheetResult, options: She
   const outcomes = new Map<string, Outcome>();
   const nextOutcomes = new Map<string, CachedOutcome>();
   const stats = { evaluated: 0, reused: 0 };
+  const entriesOf = new Map<string, CachedOutcome>();
 
   const run = (d: Decl, fresh: () => Outcome, extraKey = '') => {
     const key = d.key + extraKey;
@@ -105,7 +110,7 @@ export function evaluateSheet(text: string, previous?: SheetResult, options: She
     // for its kind: the messages about it ("l is a line, not a value") depend on the kind alone.
     const current = (n: string) => stamps.get(n) ?? UNEVALUATED[kinds.get(n) ?? 'undeclared'];
     let entry: CachedOutcome;
-    if (cached && [...cached.readStamps].every(([n, s]) => current(n) === s)) {
+    if (cached && stampsMatch(cached.readStamps, current)) {
       entry = cached;
       stats.reused++;
     } else {
@@ -121,12 +126,23 @@ export function evaluateSheet(text: string, previous?: SheetResult, options: She
     nextOutcomes.set(key, entry);
     stamps.set(d.decl.name.text, entry.stamp);
     outcomes.set(d.decl.name.text, entry.outcome);
+    entriesOf.set(d.decl.name.text, entry);
     return entry.outcome;
   };
 
   // 3. Lets in dependency order; cycles are reported and left unevaluated.
   const lets = decls.filter((d) => d.decl.kind === 'let');
-  const { order, cyclic } = orderLets(lets, compile);
+  const previousReads = cache.letReads ?? new Map<string, string[]>();
+  const usedReads = new Map<string, string[]>();
+  const readsOf = (d: Decl) => {
+    const text = d.decl.value?.text ?? '';
+    let names = usedReads.get(text) ?? previousReads.get(text);
+    if (!names) names = letReads(d, compile);
+    usedReads.set(text, names);
+    return names;
+  };
+  const { order, cyclic } = orderLets(lets, readsOf);
+  cache.letReads = usedReads;
   for (const [name, path] of cyclic) {
     const d = byName.get(name)!;
     at(d.line, { start: d.decl.name.start, end: d.decl.name.end, severity: 'error', code: 'cycle', message: `${name} depends on itself: ${path.join(' → ')}; break the loop with a plain value` });
@@ -161,13 +177,17 @@ export function evaluateSheet(text: string, previous?: SheetResult, options: She
     if (!o) continue;
     for (const diag of o.diagnostics) at(d.line, diag);
     for (const r of o.references) symbols.get(r.name)?.references.push(rangeOf(d.line, r.start, r.end));
-    entries.push({
-      line: d.line, kind: d.decl.kind, name: d.decl.name.text,
-      nameRange: rangeOf(d.line, d.decl.name.start, d.decl.name.end),
-      range: rangeOf(d.line, d.decl.span.start, d.decl.span.end),
-      results: o.results, details: o.details,
-      synthesized: o.synthesized.map((s) => ({ key: s.key, valueSI: s.valueSI, range: rangeOf(d.line, s.start, s.end) })),
-    });
+    const cached = entriesOf.get(d.decl.name.text)!;
+    if (cached.view?.line !== d.line) {
+      cached.view = {
+        line: d.line, kind: d.decl.kind, name: d.decl.name.text,
+        nameRange: rangeOf(d.line, d.decl.name.start, d.decl.name.end),
+        range: rangeOf(d.line, d.decl.span.start, d.decl.span.end),
+        results: o.results, details: o.details,
+        synthesized: o.synthesized.map((s) => ({ key: s.key, valueSI: s.valueSI, range: rangeOf(d.line, s.start, s.end) })),
+      };
+    }
+    entries.push(cached.view);
   }
   for (const d of decls) if (!outcomes.has(d.decl.name.text)) {
     entries.push({ line: d.line, kind: d.decl.kind, name: d.decl.name.text, nameRange: rangeOf(d.line, d.decl.name.start, d.decl.name.end), range: rangeOf(d.line, d.decl.span.start, d.decl.span.end), results: {}, details: [], synthesized: [] });
@@ -185,6 +205,11 @@ function clampToLine(d: LocalDiagnostic, length: number): LocalDiagnostic {
   if (d.end <= length) return d;
   const end = length;
   return { ...d, start: Math.min(d.start, Math.max(0, end - 1)), end };
+}
+
+function stampsMatch(readStamps: Map<string, number>, current: (name: string) => number): boolean {
+  for (const [name, stamp] of readStamps) if (current(name) !== stamp) return false;
+  return true;
 }
 
 const rangeOf = (line: number, start: number, end: number): Range => ({ start: { line, character: start }, end: { line, character: end } });
@@ -223,9 +248,9 @@ function letReads(d: Decl, compile: (t: string) => CompileResult): string[] {
 }
 
 /** Topological order of lets (Tarjan's strongly connected components); members of cycles are split out. */
-function orderLets(lets: Decl[], compile: (t: string) => CompileResult): { order: Decl[]; cyclic: Map<string, string[]> } {
+function orderLets(lets: Decl[], readsOf: (d: Decl) => string[]): { order: Decl[]; cyclic: Map<string, string[]> } {
   const byName = new Map(lets.map((d) => [d.decl.name.text, d]));
-  const edges = new Map(lets.map((d) => [d.decl.name.text, letReads(d, compile).filter((n) => byName.has(n))]));
+  const edges = new Map(lets.map((d) => [d.decl.name.text, readsOf(d).filter((n) => byName.has(n))]));
   const index = new Map<string, number>();
   const low = new Map<string, number>();
   const stack: string[] = [];
