@@ -31,7 +31,7 @@ interface Cache {
   /** Names each let value text mentions (for the dependency order), per value text. */
   letReads?: Map<string, string[]>;
   compiled: Map<string, CompileResult>;
-  parsed: Map<string, ParsedLine>;
+  parsed: Map<string, ParsedEntry>;
   outcomes: Map<string, CachedOutcome>;
   nextStamp: number;
 }
@@ -47,6 +47,17 @@ const LINE_BREAK = /\r\n|\r|\n/;
 /** Read stamps of names that have no evaluation (yet) in this call, by declared kind. */
 const UNEVALUATED: Record<EntryKind | 'undeclared', number> = { undeclared: -1, let: -2, substrate: -3, line: -4, stub: -5 };
 
+/** A parsed line and its evaluation-cache key (kind + text without comment), computed once per text. */
+interface ParsedEntry {
+  parsed: ParsedLine;
+  key: string;
+}
+
+function parseEntry(lineText: string): ParsedEntry {
+  const parsed = parseLine(lineText);
+  return { parsed, key: parsed.declaration ? `${parsed.declaration.kind}\u0000${lineText.split('#')[0]!.trimEnd()}` : '' };
+}
+
 function newCache(math?: SafeMath): Cache {
   return { math: math ?? createSafeMath(), compiled: new Map(), parsed: new Map(), outcomes: new Map(), nextStamp: 1 };
 }
@@ -60,15 +71,16 @@ export function evaluateSheet(text: string, previous?: SheetResult, options: She
   const at = (line: number, d: LocalDiagnostic) => diagnostics.push(toSheetDiagnostic(line, clampToLine(d, lines[line]!.length), declRange));
 
   // 1. Parse (cached per line text) and collect declarations; the first of each name wins.
-  const parsed = new Map<string, ParsedLine>();
+  const parsed = new Map<string, ParsedEntry>();
   const decls: Decl[] = [];
   const byName = new Map<string, Decl>();
   for (const [i, lineText] of lines.entries()) {
-    const p = parsed.get(lineText) ?? cache.parsed.get(lineText) ?? parseLine(lineText);
-    parsed.set(lineText, p);
+    const entry = parsed.get(lineText) ?? cache.parsed.get(lineText) ?? parseEntry(lineText);
+    parsed.set(lineText, entry);
+    const p = entry.parsed;
     for (const e of p.errors) at(i, e);
     if (!p.declaration) continue;
-    const d: Decl = { line: i, decl: p.declaration, key: `${p.declaration.kind}\u0000${lineText.split('#')[0]!.trimEnd()}` };
+    const d: Decl = { line: i, decl: p.declaration, key: entry.key };
     const first = byName.get(d.decl.name.text);
     if (first) {
       at(i, {
