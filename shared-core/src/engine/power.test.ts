@@ -2,7 +2,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { cabs } from './complex.js';
 import { idealLine } from './idealLine.js';
-import { matchedLineVoltagePeak, needsStressCheck, STRESS_CAUTION_THRESHOLDS, type StubStress, stubStress, stubStressCautions } from './power.js';
+import { matchedLineVoltagePeak, needsStressCheck, shuntJunctionVoltagePeak, STRESS_CAUTION_THRESHOLDS, type StubStress, stubStress, stubStressCautions } from './power.js';
 import { guidedWavelength, phaseConstant } from './stub.js';
 import { endedStubInputImpedance, type StubEnd } from './terminatedStub.js';
 
@@ -152,5 +152,16 @@ describe('stress cautions (common practice, no source: a prompt to check, not a 
   it('throws a RangeError for negative power or a bad impedance', () => {
     expect(() => stress({ kind: 'open' }, 0.01, -1)).toThrow(/powerW/);
     expect(() => stubStress({ powerW: 1, lineZ0: 0, end: { kind: 'open' }, stubLine: lossless, drawnLengthM: 0.01, frequencyHz: f })).toThrow(/lineZ0/);
+  });
+});
+
+describe('junction voltage with the stub shunting a matched line', () => {
+  // Shunt element between matched lines: V = V_inc·2/(2 + Z0/Zin) (Pozar, Microwave Engineering,
+  // 4th ed., ch. 4, from memory). An open circuit leaves the line voltage; a short removes it.
+  it('is the matched-line voltage for an open, zero for a short, and |2/(2 + Z0/Zin)| between', () => {
+    const v = matchedLineVoltagePeak(1, 50);
+    expect(shuntJunctionVoltagePeak(1, 50, { re: 1e12, im: 0 })).toBeCloseTo(v, 6);
+    expect(shuntJunctionVoltagePeak(1, 50, { re: 1e-9, im: 0 })).toBeLessThan(1e-6);
+    expect(shuntJunctionVoltagePeak(1, 50, { re: 0, im: -25 }) / v).toBeCloseTo(2 / Math.hypot(2, 2), 12);
   });
 });

@@ -23,7 +23,7 @@
  * The caution thresholds (100 V peak, 1 A peak) are common practice, no source: a prompt to check
  * breakdown, creepage and heating for the design, not a rating.
  */
-import { type Complex, cabs, cadd, cmul, complex, cscale } from './complex.js';
+import { type Complex, cabs, cadd, cdiv, cmul, complex, cscale } from './complex.js';
 import { checkPositiveInput } from './microstripStatic.js';
 import { phaseConstant, propagationConstant } from './stub.js';
 import { endedLineLength, endLoad, isOpenLoad, type StubEnd } from './terminatedStub.js';
@@ -64,6 +64,17 @@ export function matchedLineVoltagePeak(powerW: number, lineZ0: number): number {
   checkPositiveInput('powerW', powerW, true);
   checkPositiveInput('lineZ0', lineZ0);
   return Math.sqrt(2 * powerW * lineZ0);
+}
+
+/**
+ * Peak junction voltage when a stub of input impedance Zin shunts a matched line Z0line carrying P:
+ * the incident peak √(2·P·Z0) times the transmission through a shunt impedance, |2/(2 + Z0/Zin)|
+ * (a shunt element between matched lines; Pozar, Microwave Engineering, 4th ed., ch. 4, from memory).
+ * A trap at its series resonance shorts the line and is not credited with the full line voltage.
+ */
+export function shuntJunctionVoltagePeak(powerW: number, lineZ0: number, zin: Complex): number {
+  const transmission = cabs(cdiv(complex(2), cadd(complex(2), cdiv(complex(lineZ0), zin))));
+  return matchedLineVoltagePeak(powerW, lineZ0) * (Number.isFinite(transmission) ? transmission : 1);
 }
 
 const ccosh = (z: Complex): Complex => complex(Math.cosh(z.re) * Math.cos(z.im), Math.sinh(z.re) * Math.sin(z.im));

@@ -257,8 +257,9 @@ function swapLength(kind: StubKind, line: LineBuild, reactance: number, f: numbe
  */
 function lossFigures(kind: StubKind, line: LineBuild, reactance: number, effectiveM: number, f: number, quarterWaves: number, resonant: boolean): Outcome['results'] {
   const out: Outcome['results'] = {};
-  if (line.lossy && line.lossy(f).alpha > 0) {
-    const z = lossyStubImpedance(kind, line.lossy(f), effectiveM, f);
+  const lossyAtF = line.lossy?.(f);
+  if (lossyAtF && lossyAtF.alpha > 0) {
+    const z = lossyStubImpedance(kind, lossyAtF, effectiveM, f);
     if (Number.isFinite(z.re) && z.re > 0) {
       out.resistance_ohm = z.re;
       out.q = Number.isFinite(reactance) ? Math.abs(reactance) / z.re : null;
