@@ -8,7 +8,8 @@
  * Loss: dielectric only, the quasi-TEM filling-factor form α_d = k0·εr·q·tanδ/(2√εeff) Np/m
  * (Pozar, Microwave Engineering, 4th ed., eq. 3.198, as in microstripLine.ts), with the filling
  * factor q taken from the conformal map itself (so εr = 1 needs no special case).
- * Conductor loss is not included yet. Validity notes are available from coplanarStatic().
+ * Conductor loss: coplanarConductorLoss.ts (added by the sheet with withConductorLoss). Validity
+ * notes are available from coplanarStatic().
  */
 import { type CoplanarGeometry, coplanarStatic } from './coplanarStatic.js';
 import { quasiTemDielectricAlpha } from './microstripLine.js';

@@ -140,15 +140,27 @@ describe('coplanarStatic: input checks and validity notes', () => {
     expect(() => coplanarStatic({ ...ok, thicknessM: -1e-6 })).toThrow(/thicknessM/);
   });
 
-  it('notes a thin substrate (no backing), a far backing plane and any metal thickness', () => {
+  it('notes a thin substrate (no backing), a far backing plane and metal thick against the strip or slot', () => {
     expect(cpw(1, 0.2, 1, 4.4, false).notes).toEqual([]);
     expect(cpw(1, 0.2, 1, 4.4, true).notes).toEqual([]);
     expect(cpw(1, 0.6, 1, 4.4, false).notes).toMatchObject([{ parameter: '(s+2g)/h', max: 2, model: 'Ghione–Naldi 1984' }]);
     expect(cpw(1, 1.2, 1, 4.4, true).notes).toMatchObject([{ parameter: 'g/h', max: 1, model: 'Ghione–Naldi 1983' }]);
-    const thick = cpw(1, 0.2, 1, 4.4, false, 0.035);
-    expect(thick.notes.map((n) => n.parameter)).toEqual(['t/g']);
-    expect(thick.notes[0]?.message).toMatch(/not modelled/);
-    // The thickness is reported, not used: the numbers are those of t = 0.
-    expect(thick.z0).toBe(cpw(1, 0.2, 1, 4.4, false).z0);
+    expect(cpw(1, 0.2, 1, 4.4, false, 0.035).notes).toEqual([]);
+    expect(cpw(1, 0.2, 1, 4.4, false, 0.15).notes.map((n) => n.parameter)).toEqual(['t/g']);
+    expect(cpw(0.1, 0.2, 1, 4.4, false, 0.035).notes.map((n) => n.parameter)).toEqual(['t/s']);
+  });
+
+  it('metal thickness adds the slot walls\' capacitance: Z0 falls, εeff falls toward 1, the filling factor stays geometric', () => {
+    const thin = cpw(1, 0.2, 1, 4.4, false);
+    const thick = cpw(1, 0.2, 1, 4.4, false, 0.02);
+    expect(thick.z0).toBeLessThan(thin.z0);
+    expect(thick.epsEff).toBeLessThan(thin.epsEff);
+    // Check by hand: capacitances per ε0, walls 2t/g = 0.2 added in air.
+    const cAir0 = 376.730313668 / (thin.z0 * Math.sqrt(thin.epsEff));
+    const c = thin.epsEff * cAir0 + 0.2;
+    expect(thick.z0).toBeCloseTo(376.730313668 / Math.sqrt(c * (cAir0 + 0.2)), 9);
+    expect(thick.epsEff).toBeCloseTo(c / (cAir0 + 0.2), 12);
+    expect(thick.epsEff).toBeCloseTo(1 + thick.fillingFactor * 3.4, 12);
+    expect(cpw(1, 0.2, 1, 9, false, 0.02).fillingFactor).toBeCloseTo(thick.fillingFactor, 12);
   });
 });

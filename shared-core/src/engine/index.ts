@@ -29,3 +29,4 @@ export * from './striplineLine.js';
 export * from './coplanarStatic.js';
 export * from './coplanarSynthesis.js';
 export * from './coplanarLine.js';
+export * from './coplanarConductorLoss.js';

@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { evaluateSheet } from '../sheet/evaluate.js';
-import { applyEdits, example, lineOf, lineRange, open } from './testUtil.js';
+import { applyEdits, example, fixture, lineOf, lineRange, open } from './testUtil.js';
 
 const tour = example('warnings-tour');
-const node = example('sensor-node');
+const node = fixture('two-layer-node');
 
 describe('inlay hints', () => {
   it('show Z0/εeff for lines, the synthesized width, and L/C with X for stubs', () => {

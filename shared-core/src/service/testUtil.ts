@@ -8,6 +8,10 @@ import type { ServiceSettings, TextEdit } from './types.js';
 export const example = (name: string): string =>
   readFileSync(fileURLToPath(new URL(`../../../examples/${name}.rfsheet`, import.meta.url)), 'utf8');
 
+/** A frozen fixture of ../sheet/fixtures/ (tests that count declarations use it, not the growing demo). */
+export const fixture = (name: 'two-layer-node'): string =>
+  readFileSync(fileURLToPath(new URL(`../sheet/fixtures/${name}.rfsheet`, import.meta.url)), 'utf8');
+
 export function open(text: string, settings: Partial<ServiceSettings> = {}) {
   const service = createSheetService();
   return { service, doc: service.evaluate('file:///t.rfsheet', 1, text, settings) };

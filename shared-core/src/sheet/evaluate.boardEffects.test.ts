@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import {
-  analyseEndedStub, coplanarStatic, goldfarbPucelInductance, microstripLossyLine, openEndExtension, striplineStatic,
+  analyseEndedStub, coplanarConductorAlpha, coplanarStatic, goldfarbPucelInductance, microstripLossyLine, openEndExtension, striplineStatic,
 } from '../engine/index.js';
 import { c0 } from '../engine/constants.js';
 import { evaluateSheet } from './evaluate.js';
@@ -31,7 +31,32 @@ describe('line types beyond microstrip', () => {
     expect(c!.z0_ohm).toBeCloseTo(coplanarStatic({ widthM: 1e-3, gapM: 0.3e-3, heightM: 0.8e-3, dk: 3.5, grounded: false }).z0, 9);
     expect(g!.z0_ohm as number).toBeLessThan(c!.z0_ohm as number);
     expect(g!.eps_eff as number).toBeGreaterThan(c!.eps_eff as number);
-    expect(c!.alpha_c_db_per_m ?? null).toBeNull(); // conductor loss not modelled for coplanar lines yet
+    expect(c!.alpha_c_db_per_m ?? null).toBeNull(); // no `at`: no loss figures
+  });
+
+  it('cpw and gcpw with copper: slot-wall thickness lowers Z0, conductor loss by Owyang–Wu, Q of a stub finite', () => {
+    const text = `substrate t: dk 3.5, df 0.002, height 0.8 mm, copper 35 um
+line c: cpw on t, width 1 mm, gap 0.3 mm, at 2.45 GHz
+line bare: cpw on t, width 1 mm, gap 0.3 mm, at 2.45 GHz
+substrate n: dk 3.5, df 0.002, height 0.8 mm
+line nc: cpw on n, width 1 mm, gap 0.3 mm, at 2.45 GHz
+stub s: short on c, inductance 1 nH, at 2.45 GHz`;
+    const r = evaluateSheet(text);
+    expect(r.diagnostics).toEqual([]);
+    const get = (n: string) => r.entries.find((x) => x.name === n)!;
+    const c = get('c').results;
+    const thin = get('nc').results;
+    const geometry = { widthM: 1e-3, gapM: 0.3e-3, heightM: 0.8e-3, dk: 3.5, grounded: false, thicknessM: 35e-6 };
+    expect(c.z0_ohm).toBeCloseTo(coplanarStatic(geometry).z0, 9);
+    expect(c.z0_ohm as number).toBeLessThan(thin.z0_ohm as number);
+    const alphaC = coplanarConductorAlpha({ widthM: 1e-3, gapM: 0.3e-3, thicknessM: 35e-6 }, coplanarStatic(geometry).z0, 2.45e9);
+    expect(c.alpha_c_db_per_m).toBeCloseTo(alphaC * (20 / Math.LN10), 9);
+    expect(thin.alpha_c_db_per_m).toBe(0);
+    expect(get('nc').details.join('\n')).toMatch(/conductor loss needs the copper thickness/);
+    expect(get('c').details.join('\n')).toMatch(/Owyang–Wu/);
+    const q = get('s').results.q as number;
+    expect(q).toBeGreaterThan(10);
+    expect(q).toBeLessThan(1000);
   });
 });
 

@@ -4,11 +4,11 @@
  */
 import { describe, expect, it } from 'vitest';
 import { evaluateSheet } from './evaluate.js';
-import { example, observable } from './testUtil.js';
+import { example, fixture, observable } from './testUtil.js';
 import type { SheetOptions, SheetResult } from './types.js';
 
 const sheet = (...lines: string[]) => lines.join('\n');
-const SENSOR = example('sensor-node');
+const SENSOR = fixture('two-layer-node');
 
 function edit(text: string, from: string, to: string): string {
   expect(text.split(from), `"${from}" occurs once`).toHaveLength(2);

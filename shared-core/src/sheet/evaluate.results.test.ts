@@ -311,9 +311,22 @@ describe('the example sheets', () => {
     const text = example('sensor-node');
     const r = evaluateSheet(text);
     expect(located(text, r)).toEqual([]);
-    expect(r.entries.map((e) => e.name)).toEqual(['f0', 'band', 'board', 'feed', 'thin', 'choke', 'trap', 'tune', 'lbias']);
+    expect(r.entries.map((e) => e.name)).toEqual(['f0', 'band', 'board', 'feed', 'thin', 'choke', 'trap', 'tune', 'lbias', 'port', 'esd', 'carrier', 'ref', 'h3trap']);
     for (const e of r.entries) expect(Object.keys(e.results).length, e.name).toBeGreaterThan(0);
-    expect(r.stats).toEqual({ evaluated: 9, reused: 0 });
+    expect(r.stats).toEqual({ evaluated: 14, reused: 0 });
+    // The demo shows the engine's breadth: line types, losses and Q, end and via effects, tolerances, power.
+    expect(text).toMatch(/gcpw on board/);
+    expect(text).toMatch(/stripline on carrier/);
+    const results = (name: string) => r.entries.find((e) => e.name === name)!.results;
+    for (const line of ['thin', 'port', 'ref']) expect(results(line).alpha_c_db_per_m as number, line).toBeGreaterThan(0);
+    for (const stub of ['tune', 'lbias']) expect(results(stub).q as number, stub).toBeGreaterThan(10);
+    for (const stub of ['choke', 'trap', 'esd', 'h3trap']) {
+      expect(results(stub).resonator_q as number, stub).toBeGreaterThan(10);
+      expect(results(stub).bandwidth_hz as number, stub).toBeGreaterThan(0);
+    }
+    expect(results('tune').end_extension_m as number).toBeGreaterThan(0);
+    expect(results('esd').via_inductance_h as number).toBeGreaterThan(0);
+    expect(results('choke').resonance_nearest_hz_min).toBeDefined();
   });
 
   it('warnings-tour: exactly model-validity, detuned, near-resonance and resonance-in-band, no errors', () => {

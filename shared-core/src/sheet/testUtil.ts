@@ -74,6 +74,14 @@ export function example(name: 'sensor-node' | 'warnings-tour'): string {
   return readFileSync(new URL(`../../../examples/${name}.rfsheet`, import.meta.url), 'utf8');
 }
 
+/**
+ * A frozen test fixture from `shared-core/src/sheet/fixtures/` (the demo sheet may grow; tests that
+ * count declarations or edit at fixed places use a fixture instead).
+ */
+export function fixture(name: 'two-layer-node'): string {
+  return readFileSync(new URL(`./fixtures/${name}.rfsheet`, import.meta.url), 'utf8');
+}
+
 /** Asserts that every diagnostic range (and related range) lies inside `text`. */
 export function expectRangesInside(text: string, result: SheetResult): void {
   const lines = linesOf(text);
