@@ -20,6 +20,7 @@ describe('line types beyond microstrip', () => {
     expect(z0).toBeCloseTo(50, 6);
     expect(e.alpha_c_db_per_m).toBeGreaterThan(0);
     expect(e.alpha_db_per_m).toBeCloseTo((e.alpha_c_db_per_m as number) + (e.alpha_d_db_per_m as number), 10);
+    expect(e.alpha_np_per_m as number).toBeCloseTo((e.alpha_db_per_m as number) * Math.LN10 / 20, 12); // 1 Np = 20/ln 10 dB
   });
 
   it('cpw and gcpw need a gap, and a ground below raises εeff and lowers Z0', () => {

@@ -142,9 +142,10 @@ export function evalLine(decl: ParsedDeclaration, scope: SheetScope, resolved: R
     Object.assign(results, {
       frequency_hz: f, eps_eff_at_f: at.epsEff, z0_at_f_ohm: at.z0, wavelength_m: wavelength, loss_db_per_m: loss.alphaDbPerM,
       alpha_db_per_m: loss.alphaDbPerM, alpha_c_db_per_m: loss.alphaCDbPerM, alpha_d_db_per_m: loss.alphaDDbPerM,
+      alpha_np_per_m: loss.alphaDbPerM / NEPER_TO_DB,
     });
     const split = loss.alphaCDbPerM === null ? 'dielectric only' : `conductor ${loss.alphaCDbPerM.toPrecision(3)} + dielectric ${loss.alphaDDbPerM.toPrecision(3)}`;
-    details.push(`at ${formatQuantity(f, 'frequency')}: Z0 ${formatQuantity(at.z0, 'impedance')}, εeff ${at.epsEff.toFixed(4)}, λg ${formatQuantity(wavelength, 'length')}, loss ${loss.alphaDbPerM.toPrecision(3)} dB/m (${split})`);
+    details.push(`at ${formatQuantity(f, 'frequency')}: Z0 ${formatQuantity(at.z0, 'impedance')}, εeff ${at.epsEff.toFixed(4)}, λg ${formatQuantity(wavelength, 'length')}, loss ${loss.alphaDbPerM.toPrecision(3)} dB/m = ${(loss.alphaDbPerM / NEPER_TO_DB).toPrecision(3)} Np/m (${split})`);
     if (build.lossNote) details.push(build.lossNote);
   }
   details.push(`model: ${build.modelName}`);
