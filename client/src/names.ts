@@ -10,3 +10,5 @@ export const CLIENT_ID = 'stubwright';
 export const CLIENT_NAME = 'Stubwright Language Server';
 /** The bundled server, shipped in the extension's `dist/` folder. */
 export const SERVER_MODULE = 'server.js';
+/** Setting (in CONFIGURATION_SECTION) that shows the "Plot" code lenses above stubs and lines. */
+export const PLOT_CODE_LENS_SETTING = 'plotCodeLens';

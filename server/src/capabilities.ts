@@ -12,6 +12,8 @@ export interface ClientSupport {
   pullDiagnostics: boolean;
   diagnosticRefresh: boolean;
   inlayHintRefresh: boolean;
+  /** `workspace/codeLens/refresh` (the plot lenses follow `stubwright.plotCodeLens`, which the client applies). */
+  codeLensRefresh: boolean;
   /** `workspace/configuration`. */
   configuration: boolean;
   didChangeConfigurationRegistration: boolean;
@@ -28,6 +30,7 @@ export function clientSupport(c: ClientCapabilities): ClientSupport {
     pullDiagnostics: td?.diagnostic !== undefined,
     diagnosticRefresh: c.workspace?.diagnostics?.refreshSupport === true,
     inlayHintRefresh: c.workspace?.inlayHint?.refreshSupport === true,
+    codeLensRefresh: c.workspace?.codeLens?.refreshSupport === true,
     configuration: c.workspace?.configuration === true,
     didChangeConfigurationRegistration: c.workspace?.didChangeConfiguration?.dynamicRegistration === true,
     snippets: td?.completion?.completionItem?.snippetSupport === true,
@@ -53,6 +56,7 @@ export function serverCapabilities(s: ClientSupport): ServerCapabilities {
     definitionProvider: true,
     referencesProvider: true,
     renameProvider: s.prepareRename ? { prepareProvider: true } : true,
+    codeLensProvider: { resolveProvider: false },
     ...(s.pullDiagnostics
       ? { diagnosticProvider: { identifier: 'stubwright', interFileDependencies: false, workspaceDiagnostics: false } }
       : {}),

@@ -121,12 +121,16 @@ export function toCompletionItem(c: SheetCompletionItem, snippets: boolean): Com
   return out;
 }
 
-/** Outline kinds: lets are constants, a substrate is the module its lines live in, lines are the types stubs are cut from, stubs their instances. */
+/**
+ * Outline kinds: lets are constants, a substrate is the module its lines live in, lines are the
+ * types stubs are cut from, stubs their instances, and a sweep is a series of points.
+ */
 export const SYMBOL_KIND: Record<SheetSymbol['kind'], SymbolKind> = {
   let: SymbolKind.Constant,
   substrate: SymbolKind.Module,
   line: SymbolKind.Class,
   stub: SymbolKind.Object,
+  sweep: SymbolKind.Array,
 };
 
 /** A hierarchical outline entry (declarations have no children). */

@@ -11,6 +11,13 @@ export {
   type EvaluatedDocument,
   type Hover as SheetHover,
   type InlayHint as SheetInlayHint,
+  type ExportOptions,
+  type ExportResult,
+  type PlotMarker,
+  type PlotOptions,
+  type PlotResult,
+  type PlotTarget,
+  type PlotView,
   type ServiceSettings,
   type TextEdit as SheetTextEdit,
 } from '../../shared-core/src/service/types.js';

@@ -15,6 +15,7 @@ import { registerDiagnostics } from './features/diagnostics.js';
 import { registerHover } from './features/hover.js';
 import { registerInlayHints } from './features/inlayHints.js';
 import { registerNavigation } from './features/navigation.js';
+import { registerPlot } from './features/plot.js';
 import { registerRename } from './features/rename.js';
 import { registerSymbols } from './features/symbols.js';
 import { createRunSafe } from './runSafe.js';
@@ -77,6 +78,7 @@ export function startServer(connection: Connection, deps: ServerDeps = {}): void
   registerSymbols(ctx);
   registerNavigation(ctx);
   registerRename(ctx);
+  registerPlot(ctx);
 
   ctx.documents.open.listen(connection);
   connection.listen();

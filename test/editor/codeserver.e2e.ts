@@ -3,7 +3,9 @@
  * chromium: the packaged .vsix is installed, examples/warnings-tour.rfsheet is opened (a scratch
  * copy), and the test checks what a user sees — activation, inlay hints on the stub lines, a hover on
  * a stub name, the resonance warnings in the Problems panel, and the near-resonance quick fix
- * changing the text and clearing its warning. Last, the desktop suite's API checks
+ * changing the text and clearing its warning. Then, on the demo sheet, one click on a stub's "Plot
+ * reactance" code lens opens the plot panel beside it, themed, and the plot follows an edit of the
+ * stub. Last, the desktop suite's API checks
  * (electron/suite/apiChecks.ts) run in code-server's own extension host from a test-only probe
  * extension. Screenshots go to test/artifacts/codeserver/.
  *
@@ -11,15 +13,19 @@
  * Run with `npm run test:editor` (packages the extension first).
  */
 import { existsSync, readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import type { Frame } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it, onTestFailed } from 'vitest';
 import { codeServerAvailability } from './codeserver/availability.js';
 import { readProblemRows, readProblemsStatus, type ProblemRow } from './codeserver/pageScripts.js';
 import { startSession, type Session } from './codeserver/session.js';
 import { waitFor } from './codeserver/wait.js';
-import { editorLines, hoverAt, openQuickFixMenu, runCommand, showProblems } from './codeserver/workbench.js';
+import { editorLines, gotoPosition, hoverAt, openQuickFixMenu, quickOpen, runCommand, showProblems } from './codeserver/workbench.js';
 import { API_CHECK_COUNT, PROBE_COMMAND } from './electron/probeExtension.js';
 
 const SHEET = 'warnings-tour.rfsheet';
+/** The demo sheet, opened for the plot panel. */
+const DEMO = 'sensor-node.rfsheet';
 /** Warnings the example is written to show (see its comments). */
 const EXPECTED_CODES = ['model-validity', 'detuned', 'near-resonance', 'resonance-in-band'];
 const QUICK_FIX = /^Move out of the resonance margin/;
@@ -45,7 +51,7 @@ describe.skipIf(!available)(`code-server end to end${available ? '' : ` — skip
   let problems: ProblemRow[] = [];
 
   beforeAll(async () => {
-    s = await startSession(SHEET);
+    s = await startSession(SHEET, [DEMO]);
   }, 15 * 60_000);
 
   afterAll(async () => {
@@ -163,6 +169,76 @@ describe.skipIf(!available)(`code-server end to end${available ? '' : ` — skip
     });
     const changed = saved.split('\n').flatMap((t, i) => (t === s.original.split('\n')[i] ? [] : [i + 1]));
     expect(changed).toEqual([line]);
+  });
+
+  it('opens a stub\'s plot from its code lens in one click, themed, and updates it as the stub is edited', async () => {
+    shotOnFailure('plot-panel');
+    const demo = readFileSync(join(s.workspace, DEMO), 'utf8').split('\n');
+    const stubLine = demo.findIndex((l) => l.startsWith('stub trap:'));
+    expect(stubLine).toBeGreaterThan(0);
+    await quickOpen(s.page, DEMO);
+    // The lens sits in the view zone just above its line: pick the one whose box ends closest above `stub trap:`.
+    const lens = await waitFor('the "Plot reactance" lens above stub trap', 30_000, async () => {
+      const lineBox = await s.page.locator('.editor-group-container.active .view-lines .view-line', { hasText: 'stub trap:' }).first().boundingBox();
+      if (!lineBox) return null;
+      const links = s.page.locator('.editor-group-container.active .codelens-decoration a', { hasText: 'Plot reactance' });
+      let best: { index: number; gap: number } | null = null;
+      for (let i = 0; i < await links.count(); i++) {
+        const box = await links.nth(i).boundingBox();
+        const gap = box ? lineBox.y - (box.y + box.height) : -1;
+        if (box && gap >= -2 && gap < lineBox.height && (!best || gap < best.gap)) best = { index: i, gap };
+      }
+      return best ? links.nth(best.index) : null;
+    });
+    await lens.click();
+    await s.page.locator('.tabs-container .tab', { hasText: 'Plot: trap' }).waitFor({ state: 'visible', timeout: 20_000 });
+    const frame = await waitFor('the plot in the webview', 30_000, async () => {
+      for (const f of s.page.frames()) {
+        if (await f.locator('#plot svg.sw-plot').count().catch(() => 0)) return f;
+      }
+      return null;
+    });
+    const read = (f: Frame) => f.evaluate(() => {
+      const d = (globalThis as unknown as { document: any }).document;
+      const svg = d.querySelector('#plot svg');
+      const style = (globalThis as unknown as { getComputedStyle: any }).getComputedStyle;
+      const trace = svg.querySelector('.sw-trace[data-quantity="reactance"]');
+      return {
+        title: svg.getAttribute('aria-label') as string,
+        view: svg.getAttribute('data-view') as string,
+        resonances: [...svg.querySelectorAll('.sw-resonance')].map((e: any) => Number(e.getAttribute('data-x'))),
+        status: d.getElementById('status').textContent as string,
+        traceStroke: style(trace).stroke as string,
+        themeBlue: style(d.documentElement).getPropertyValue('--vscode-charts-blue').trim() as string,
+        background: style(d.body).backgroundColor as string,
+        themeBackground: style(d.documentElement).getPropertyValue('--vscode-editor-background').trim() as string,
+      };
+    });
+    const shown = await read(frame);
+    expect(shown.title).toMatch(/^trap: open stub/);
+    expect(shown.view).toBe('frequency');
+    expect(shown.resonances.length).toBeGreaterThan(0);
+    expect(shown.status).toBe('');
+    // VS Code's theme reaches the plot: the webview defines the variables and the trace and page use them.
+    expect(shown.themeBlue).toMatch(/^#[0-9a-f]{6}/i);
+    const hex = (h: string) => `rgb(${[1, 3, 5].map((i) => parseInt(h.slice(i, i + 2), 16)).join(', ')})`;
+    expect(shown.traceStroke).toBe(hex(shown.themeBlue));
+    expect(shown.background).toBe(hex(shown.themeBackground));
+    await s.screenshot('07-plot-panel.png');
+
+    // Live: shorten the trap from 90° to 60° in the editor; the resonance moves up without saving.
+    const col = demo[stubLine]!.indexOf('90°') + 1;
+    await gotoPosition(s.page, stubLine + 1, col);
+    await s.page.keyboard.press('Shift+ArrowRight');
+    await s.page.keyboard.press('Shift+ArrowRight');
+    await s.page.keyboard.type('60');
+    const moved = await waitFor('the plot to follow the edit', 20_000, async () => {
+      const now = await read(frame);
+      return Math.min(...now.resonances) > Math.min(...shown.resonances) * 1.3 ? now : null;
+    });
+    expect(moved.status).toBe('');
+    await s.screenshot('08-plot-after-edit.png');
+    await s.page.keyboard.press('Control+z');
   });
 
   it('passes the in-editor API checks (the desktop suite) in code-server\'s extension host', async () => {

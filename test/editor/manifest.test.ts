@@ -12,7 +12,8 @@ import { toServiceSettings } from '../../server/src/settings.js';
 import { LINE_TYPES } from '../../shared-core/src/sheet/eval/lineTypes.js';
 import { parseLine } from '../../shared-core/src/sheet/parse/lineParser.js';
 import { STUB_KINDS } from '../../shared-core/src/sheet/schema.js';
-import { CONFIGURATION_SECTION, LANGUAGE_ID, SERVER_MODULE } from '../../client/src/names.js';
+import { CONFIGURATION_SECTION, LANGUAGE_ID, PLOT_CODE_LENS_SETTING, SERVER_MODULE } from '../../client/src/names.js';
+import { SHOW_PLOT_COMMAND } from '../../client/src/protocol.js';
 
 const CLIENT = new URL('../../client/', import.meta.url).pathname;
 const read = (rel: string): string => readFileSync(join(CLIENT, rel), 'utf8');
@@ -56,10 +57,20 @@ describe('extension manifest', () => {
     expect(JSON.parse(read(language.configuration)).comments.lineComment).toBe('#');
   });
 
-  it('declares the four settings with the language service defaults', () => {
+  it('contributes the plot command, in the palette and the editor title only for sheets', () => {
+    const commands: { command: string; title: string; category?: string }[] = manifest.contributes.commands;
+    expect(commands.map((c) => c.command)).toEqual([SHOW_PLOT_COMMAND]);
+    expect(commands[0]).toMatchObject({ title: 'Show Plot', category: 'Stubwright' });
+    const { commandPalette, 'editor/title': title } = manifest.contributes.menus;
+    expect(commandPalette).toEqual([{ command: SHOW_PLOT_COMMAND, when: `editorLangId == ${LANGUAGE_ID}` }]);
+    expect(title).toEqual([expect.objectContaining({ command: SHOW_PLOT_COMMAND, when: `resourceLangId == ${LANGUAGE_ID}` })]);
+  });
+
+  it('declares the settings, the server\'s four with the language service defaults, and the plot lenses on by default', () => {
     const props = manifest.contributes.configuration.properties;
     const key = (k: string) => `${CONFIGURATION_SECTION}.${k}`;
-    expect(Object.keys(props).sort()).toEqual(['inlayHints', 'lengthUnit', 'manufacturingGrid', 'resonanceMargin'].map(key));
+    expect(Object.keys(props).sort()).toEqual(['inlayHints', 'lengthUnit', 'manufacturingGrid', PLOT_CODE_LENS_SETTING, 'resonanceMargin'].map(key));
+    expect(props[key(PLOT_CODE_LENS_SETTING)]).toMatchObject({ type: 'boolean', default: true });
     expect(props[key('resonanceMargin')].default).toBe(DEFAULT_SETTINGS.marginPct);
     expect(props[key('manufacturingGrid')].default * 1e-3).toBeCloseTo(DEFAULT_SETTINGS.gridM, 12);
     expect(props[key('lengthUnit')].default).toBe(DEFAULT_SETTINGS.lengthUnit);
@@ -92,7 +103,7 @@ describe('extension manifest', () => {
     const lines = Object.values(snippets).map((s) => expandSnippet(s.body));
     for (const line of lines) expect(parseLine(line).errors, line).toEqual([]);
     const heads = lines.map((l) => parseLine(l).declaration!).map((d) => `${d.kind} ${d.head?.word.text ?? ''}`.trim());
-    const wanted = ['let', 'substrate', ...Object.keys(LINE_TYPES).map((t) => `line ${t}`), ...STUB_KINDS.map((k) => `stub ${k}`)];
+    const wanted = ['let', 'substrate', ...Object.keys(LINE_TYPES).map((t) => `line ${t}`), ...STUB_KINDS.map((k) => `stub ${k}`), 'sweep'];
     for (const w of wanted) expect(heads, w).toContain(w);
   });
 

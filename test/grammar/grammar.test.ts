@@ -92,6 +92,18 @@ describe('rfsheet grammar', () => {
     }
   });
 
+  it('scopes a sweep: keyword, name, `of` and what it sweeps, its keys and range', () => {
+    const line = 'sweep wide: of tune, over 1 GHz .. 6 GHz, points 201, ref 50 ohm   # for the plot';
+    expectScope(line, 'sweep', 'keyword.control');
+    expectScope(line, 'wide', 'entity.name');
+    expectScope(line, 'of', 'support.type.property-name');
+    expectScope(line, 'tune', 'variable.other');
+    for (const key of ['over', 'points', 'ref']) expectScope(line, key, 'support.type.property-name');
+    expectScope(line, '..', 'keyword.operator.range');
+    expect(scopesOf(line, 'GHz')).toEqual(['keyword.other.unit.rfsheet', 'keyword.other.unit.rfsheet']);
+    expectScope('sweep sec: of feed, length 20 mm, over 0.1 GHz .. 10 GHz', 'length', 'support.type.property-name');
+  });
+
   it('scopes units after numbers, with and without a space', () => {
     const line = 'stub t: open on feed, angle 90°, at 2*f0, capacitance 0.9pF';
     expectScope(line, '°', 'keyword.other.unit');

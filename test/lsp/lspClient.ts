@@ -2,13 +2,15 @@
  * A scripted LSP client for tests: spawns the bundled server (`node server/dist/server.js --stdio`),
  * talks JSON-RPC to it over the child's pipes with vscode-languageserver-protocol, and answers the
  * server's requests the way an editor would (workspace/configuration from `settings`,
- * client/registerCapability, the refresh requests, window/workDoneProgress/create).
+ * client/registerCapability, the refresh requests (diagnostics, inlay hints, code lenses),
+ * window/workDoneProgress/create).
  * Every server→client message is recorded in `events`; `waitFor` resolves on the first matching
  * one (already received or yet to come) and fails after a timeout, so tests never sleep.
  */
 import { execFileSync, spawn, type ChildProcess } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
 import {
+  CodeLensRefreshRequest,
   ConfigurationRequest,
   DiagnosticRefreshRequest,
   DidChangeTextDocumentNotification,
@@ -49,6 +51,7 @@ export const PULL_CAPABILITIES: ClientCapabilities = {
     didChangeConfiguration: { dynamicRegistration: true },
     diagnostics: { refreshSupport: true },
     inlayHint: { refreshSupport: true },
+    codeLens: { refreshSupport: true },
     workspaceEdit: { documentChanges: true },
   },
   textDocument: {
@@ -61,6 +64,7 @@ export const PULL_CAPABILITIES: ClientCapabilities = {
     codeAction: { codeActionLiteralSupport: { codeActionKind: { valueSet: ['quickfix', 'refactor', 'refactor.rewrite'] } }, isPreferredSupport: true },
     rename: { prepareSupport: true },
     inlayHint: { dynamicRegistration: false },
+    codeLens: { dynamicRegistration: false },
     definition: {},
     references: {},
   },
@@ -141,6 +145,7 @@ export async function startClient(options: StartOptions = {}): Promise<LspClient
   connection.onRequest(RegistrationRequest.type, (params) => void record(RegistrationRequest.method, params));
   connection.onRequest(DiagnosticRefreshRequest.type, () => void record(DiagnosticRefreshRequest.method, null));
   connection.onRequest(InlayHintRefreshRequest.type, () => void record(InlayHintRefreshRequest.method, null));
+  connection.onRequest(CodeLensRefreshRequest.type, () => void record(CodeLensRefreshRequest.method, null));
   connection.onRequest(WorkDoneProgressCreateRequest.type, (params) => void record(WorkDoneProgressCreateRequest.method, params));
   connection.onNotification(PublishDiagnosticsNotification.type, (params) => record(PublishDiagnosticsNotification.method, params));
   connection.onNotification(LogMessageNotification.type, (params) => record(LogMessageNotification.method, params));

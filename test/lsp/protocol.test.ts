@@ -221,7 +221,7 @@ describe('language server over stdio (pull diagnostics)', () => {
     const complete = (position: Position) =>
       client.connection.sendRequest(CompletionRequest.type, { textDocument: { uri: TOUR_URI }, position }) as Promise<CompletionItem[]>;
     const start = await complete({ line: lineOf('stub lload'), character: 0 });
-    expect(start.filter((c) => c.kind === CompletionItemKind.Keyword).map((c) => c.label)).toEqual(['let', 'substrate', 'line', 'stub']);
+    expect(start.filter((c) => c.kind === CompletionItemKind.Keyword).map((c) => c.label)).toEqual(['let', 'substrate', 'line', 'stub', 'sweep']);
     const snippet = start.find((c) => c.label.startsWith('stub ') && c.kind === CompletionItemKind.Snippet)!;
     expect(snippet).toMatchObject({ insertTextFormat: InsertTextFormat.Snippet, insertText: expect.stringContaining('${1:') });
     const lines = await complete(at('stub lload', 'on ', 3));

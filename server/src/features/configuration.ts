@@ -1,8 +1,8 @@
 /**
  * `workspace/didChangeConfiguration`: drop every cached setting, then have the client re-pull
- * diagnostics and inlay hints (or re-push diagnostics for push clients).
+ * diagnostics, inlay hints and code lenses (or re-push diagnostics for push clients).
  */
-import { DidChangeConfigurationNotification } from 'vscode-languageserver';
+import { CodeLensRefreshRequest, DidChangeConfigurationNotification } from 'vscode-languageserver';
 import type { ServerContext } from '../context.js';
 import type { RefreshDiagnostics } from './diagnostics.js';
 
@@ -14,6 +14,9 @@ export function registerConfiguration(ctx: ServerContext, refreshDiagnostics: Re
     refreshDiagnostics();
     if (ctx.client.inlayHintRefresh) {
       connection.languages.inlayHint.refresh().catch((e: unknown) => connection.console.error(`inlay hint refresh failed: ${String(e)}`));
+    }
+    if (ctx.client.codeLensRefresh) {
+      connection.sendRequest(CodeLensRefreshRequest.type).catch((e: unknown) => connection.console.error(`code lens refresh failed: ${String(e)}`));
     }
   });
   return () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { parseArgs, parseMarginPct } from './args.js';
+import { parseArgs, parseMarginPct, parseQuantityArg } from './args.js';
 
 const ok = (argv: string[]) => {
   const r = parseArgs(argv);
@@ -76,4 +76,58 @@ describe('parseMarginPct', () => {
   it.each(['', '0', '0.0', '-1', '100.01', '1e3', 'NaN', 'Infinity', '10 percent', '0x10', '1,5', '%'])('refuses %j', (text) => {
     expect(parseMarginPct(text)).toBeNull();
   });
+});
+
+describe('parseArgs: export and plot', () => {
+  it('parses export with Touchstone (ports from the extension) or CSV, and the sweep options', () => {
+    expect(ok(['export', 'a.rfsheet', '--name', 'trap', '--touchstone', 'trap.s1p'])).toEqual({
+      kind: 'export', file: 'a.rfsheet', name: 'trap', format: 'touchstone', output: 'trap.s1p', ports: 1, range: {},
+    });
+    expect(ok(['export', 'a', '--name=t', '--touchstone=o.S2P', '--from', '1GHz', '--to=2.5 GHz', '--points', '11', '--margin', '5'])).toEqual({
+      kind: 'export', file: 'a', name: 't', format: 'touchstone', output: 'o.S2P', ports: 2, range: { from: 1e9, to: 2.5e9, points: 11 }, marginPct: 5,
+    });
+    expect(ok(['export', 'a', '--name', 't', '--csv', 'o.csv'])).toMatchObject({ format: 'csv', output: 'o.csv' });
+  });
+
+  it('parses plot, with lengths for the length view', () => {
+    expect(ok(['plot', 'a', '--name', 't', '--svg', 'p.svg'])).toEqual({ kind: 'plot', file: 'a', name: 't', output: 'p.svg', view: 'frequency', range: {} });
+    expect(ok(['plot', 'a', '--name', 't', '--svg', 'p.svg', '--view', 'length', '--from', '2mm', '--to', '300 mil', '--length-unit', 'mil'])).toEqual({
+      kind: 'plot', file: 'a', name: 't', output: 'p.svg', view: 'length', range: { from: 2e-3, to: 300 * 25.4e-6 }, lengthUnit: 'mil',
+    });
+    expect(ok(['help', 'export'])).toEqual({ kind: 'help', topic: 'export' });
+    expect(ok(['plot', '--help'])).toEqual({ kind: 'help', topic: 'plot' });
+  });
+
+  it.each([
+    [['export', 'a', '--touchstone', 'x.s1p'], /--name NAME/],
+    [['export', 'a', '--name', '1x', '--csv', 'x'], /--name takes a declared name/],
+    [['export', 'a', 'b', '--name', 't', '--csv', 'x'], /export takes one sheet, got 2/],
+    [['export', '--name', 't', '--csv', 'x'], /no sheet given: stubwright export FILE --name NAME/],
+    [['export', 'a', '--name', 't', '--touchstone', 'x.s3p'], /ending in \.s1p/],
+    [['export', 'a', '--name', 't', '--csv', 'x', '--touchstone', 'y.s1p'], /give one of/],
+    [['export', 'a', '--name', 't', '--csv', 'x', '--svg', 'y'], /unknown option '--svg' for export/],
+    [['export', 'a', '--name', 't', '--csv', 'x', '--from', '2 parsecs'], /--from is a positive frequency/],
+    [['export', 'a', '--name', 't', '--csv', 'x', '--points', '1'], /--points is a whole number from 2 to 10001/],
+    [['export', 'a', '--name', 't', '--csv', 'x', '--points', '3.5'], /--points is a whole number/],
+    [['export', 'a', '--name', 't', '--csv', 'x', '--from', '2GHz', '--to', '1GHz'], /--from must be below --to/],
+    [['plot', 'a', '--name', 't'], /--svg OUT\.svg/],
+    [['plot', 'a', '--name', 't', '--svg', 'x', '--view', 'smith'], /--view must be frequency or length/],
+    [['plot', 'a', '--name', 't', '--svg', 'x', '--length-unit', 'in'], /--length-unit must be mm or mil/],
+    [['plot', 'a', '--name', 't', '--svg', 'x', '--view', 'length', '--to', '12'], /a positive length with its unit/],
+    [['plot', 'a', '--name', 't', '--svg', 'x', '--touchstone', 'y.s1p'], /unknown option '--touchstone' for plot/],
+    [['help', 'frob'], /commands are eval, check, export and plot/],
+  ])('refuses %j', (argv, message) => {
+    expect(bad(argv as string[])).toMatch(message);
+  });
+});
+
+describe('parseQuantityArg', () => {
+  it.each([
+    ['2.4GHz', 'frequency', 2.4e9], ['2.4 ghz', 'frequency', 2.4e9], ['2.4e9', 'frequency', 2.4e9], ['100 MHz', 'frequency', 1e8], ['5kHz', 'frequency', 5e3],
+    ['12mm', 'length', 12e-3], ['500 mil', 'length', 500 * 25.4e-6], ['30um', 'length', 30e-6], ['0.1 m', 'length', 0.1],
+  ] as const)('reads %j as a %s', (text, kind, value) => expect(parseQuantityArg(text, kind)).toBeCloseTo(value, 12));
+
+  it.each([
+    ['', 'frequency'], ['0', 'frequency'], ['-1GHz', 'frequency'], ['2 GHz GHz', 'frequency'], ['2 mm', 'frequency'], ['12', 'length'], ['2GHz', 'length'], ['1e999', 'frequency'],
+  ] as const)('refuses %j as a %s', (text, kind) => expect(parseQuantityArg(text, kind)).toBeNull());
 });

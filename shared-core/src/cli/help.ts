@@ -9,6 +9,10 @@ stub reactance, equivalent L and C, and how close each stub sits to a resonance.
 Commands:
   eval FILE...     print each sheet with its key results as aligned trailing notes
   check FILE...    report diagnostics (for editors and CI)
+  export FILE --name NAME --touchstone OUT.s1p|OUT.s2p | --csv OUT.csv
+                   write a sweep of a stub, line section or line (Touchstone 1.1 or CSV)
+  plot FILE --name NAME --svg OUT.svg
+                   draw a stub's reactance and equivalent L or C (or a line) as SVG
 
 Options:
   -h, --help       show help (also: stubwright <command> --help, stubwright help <command>)
@@ -67,9 +71,59 @@ Exit status: 0 clean, 1 errors (or warnings with --strict), 2 usage or file erro
 ${JSON_SHAPE}
 `;
 
+const SWEEP_OPTIONS = `  --name NAME      the stub, line or sweep (a "sweep NAME: of …" declaration) to use
+  --from F, --to F frequency range (2.4GHz, 2.4 GHz, 2.4e9; a bare number is Hz); default:
+                   the sweep's range, else a span around the stub's "at" that shows the
+                   resonances on either side of it (its band included), or 0.02 … 2 × a line's "at"
+  --points N       number of points, evenly spaced, ends included, 2 … 10001 (default: the
+                   sweep's, else 401)
+${MARGIN}`;
+
+const EXPORT = `Usage: stubwright export FILE --name NAME (--touchstone OUT | --csv OUT)
+                         [--from F] [--to F] [--points N] [--margin PCT]
+
+Writes a frequency sweep of one declaration to OUT, atomically (a temporary file, then a
+rename); nothing else is written, and OUT may not be the sheet itself.
+  --touchstone OUT.s1p  Touchstone 1.1 one-port: a stub from its input to ground
+  --touchstone OUT.s2p  Touchstone 1.1 two-port: a stub in shunt across a through line, or a
+                        line section (a sweep of a line with a length)
+  --csv OUT.csv         CSV, SI units: a stub's R, X, L or C and S11; a section's S-parameters;
+                        a line's Z0, εeff and loss
+S-parameters are referred to the sweep's "ref" (default 50 Ω), stated in the option line
+("# Hz S RI R 50"); the "!" header says what was swept.
+
+Options:
+${SWEEP_OPTIONS}
+  -h, --help       show this help
+
+Exit status: 0 written, 1 the declaration has errors, 2 usage, name, file or write error.
+`;
+
+const PLOT = `Usage: stubwright plot FILE --name NAME --svg OUT [--view frequency|length]
+                       [--from F] [--to F] [--points N] [--length-unit mm|mil] [--margin PCT]
+
+Draws the same picture as the editor's plot panel, as a self-contained SVG file (no script,
+nothing loaded from elsewhere), written atomically to OUT.
+  stub   reactance X (and resistance R on a lossy line) and the equivalent L or C, over
+         frequency; resonances marked and labelled, the band shaded, the operating point shown
+  line   Z0, εeff and loss over frequency; a sweep of a line section: |S11| and |S21| in dB
+
+Options:
+  --svg OUT        where to write the picture
+  --view VIEW      frequency (default) or length: a stub's X over its drawn length at its "at";
+                   then --from and --to are lengths with a unit (5mm, 200mil)
+  --length-unit U  mm (default) or mil, for lengths on the picture
+${SWEEP_OPTIONS}
+  -h, --help       show this help
+
+Exit status: 0 written, 1 the declaration has errors, 2 usage, name, file or write error.
+`;
+
 /** The help text for a command, or the overview. */
 export function helpText(topic?: Topic): string {
   if (topic === 'eval') return EVAL;
   if (topic === 'check') return CHECK;
+  if (topic === 'export') return EXPORT;
+  if (topic === 'plot') return PLOT;
   return OVERVIEW;
 }

@@ -1,4 +1,5 @@
 /** The real, Node-backed `CliDeps` (everything except the evaluator, which `main.ts` supplies). */
+import { stat } from 'node:fs/promises';
 import { isAbsolute, relative, resolve, sep } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import type { CliDeps } from './run.js';
@@ -23,6 +24,17 @@ export function directoryUri(dir: string): string {
   return href.endsWith('/') ? href : `${href}/`;
 }
 
+/** True when two absolute paths are one file: equal paths, or (both existing) the same device and inode. */
+export async function sameFile(a: string, b: string): Promise<boolean> {
+  if (a === b) return true;
+  try {
+    const [x, y] = await Promise.all([stat(a), stat(b)]);
+    return x.dev === y.dev && x.ino === y.ino;
+  } catch {
+    return false;
+  }
+}
+
 /** Node implementations of the command line's I/O, relative to `cwd`. */
 export function nodeDeps(cwd: string): Omit<CliDeps, 'evaluate'> {
   return {
@@ -33,5 +45,6 @@ export function nodeDeps(cwd: string): Omit<CliDeps, 'evaluate'> {
     artifactUri: (file) => artifactUri(file, cwd),
     srcRoot: directoryUri(cwd),
     version: STUBWRIGHT_VERSION,
+    sameFile: (a, b) => sameFile(resolve(cwd, a), resolve(cwd, b)),
   };
 }

@@ -2,9 +2,12 @@
  * The `stubwright` command line as a function: argv and injected I/O in, exit code out.
  * Everything Node-specific arrives through `CliDeps` (see `nodeDeps.ts`), so tests run it in memory.
  *
- * Exit codes: 0 clean; 1 error diagnostics (with `check --strict`, warnings too);
- * 2 usage error, unreadable input, unwritable `--output`, or an internal failure.
+ * Exit codes: 0 clean; 1 error diagnostics (with `check --strict`, warnings too; for `export` and
+ * `plot`, errors on the named declaration's line that keep it from being swept);
+ * 2 usage error (an unknown name included), unreadable input, unwritable output, or an internal failure.
  */
+import { getExport, getPlot } from '../service/plot.js';
+import { DEFAULT_SETTINGS, type EvaluatedDocument } from '../service/types.js';
 import type { SheetOptions, SheetResult } from '../sheet/types.js';
 import { annotateSheet } from './annotate.js';
 import { parseArgs, type CliCommand } from './args.js';
@@ -30,6 +33,11 @@ export interface CliDeps {
   srcRoot?: string;
   /** Version printed by `--version` and put in SARIF. */
   version: string;
+  /**
+   * True when two paths name the same file (after resolving, and following links where both
+   * exist); `export` and `plot` refuse to write over their input sheet. Default: the same string.
+   */
+  sameFile?(a: string, b: string): Promise<boolean>;
 }
 
 /** Exit codes. */
@@ -47,6 +55,7 @@ interface Failure {
 }
 
 type SheetCommand = Extract<CliCommand, { kind: 'eval' | 'check' }>;
+type SweepCommand = Extract<CliCommand, { kind: 'export' | 'plot' }>;
 
 const errorText = (e: unknown): string => (e instanceof Error ? e.message : String(e));
 
@@ -122,6 +131,7 @@ export async function runCli(argv: readonly string[], deps: CliDeps): Promise<nu
     deps.stdout(`${deps.version}\n`);
     return EXIT.ok;
   }
+  if (cmd.kind === 'export' || cmd.kind === 'plot') return runSweepCommand(cmd, deps);
   const { done, failed } = await evaluateFiles(cmd, deps);
   if (cmd.kind === 'eval') {
     const single = cmd.files.length === 1;
@@ -149,4 +159,49 @@ export async function runCli(argv: readonly string[], deps: CliDeps): Promise<nu
     if (cmd.format === 'text' && counts.error + counts.warning + counts.info > 0) deps.stderr(`${summary}\n`);
   }
   return exitCode(done, failed, cmd.strict);
+}
+
+/** `export` and `plot`: evaluate one sheet, sweep one declaration, write one file atomically. */
+async function runSweepCommand(cmd: SweepCommand, deps: CliDeps): Promise<number> {
+  const fail = (message: string, code: number = EXIT.usage) => {
+    deps.stderr(`stubwright: ${message}\n`);
+    return code;
+  };
+  const same = deps.sameFile ?? (async (a: string, b: string) => a === b);
+  if (await same(cmd.output, cmd.file)) return fail(`refusing to write ${cmd.output}: it is the sheet being read; choose another output file`);
+  const read = await deps.readSheet(cmd.file);
+  if (!read.ok) return fail(`${cmd.file}: ${read.message}`);
+  let result: SheetResult;
+  try {
+    result = deps.evaluate(read.text, cmd.marginPct === undefined ? {} : { marginPct: cmd.marginPct });
+  } catch (e) {
+    return fail(`${cmd.file}: internal error while evaluating (please report it with the sheet): ${errorText(e)}`);
+  }
+  const settings = { ...DEFAULT_SETTINGS, ...(cmd.marginPct === undefined ? {} : { marginPct: cmd.marginPct }), ...(cmd.kind === 'plot' && cmd.lengthUnit ? { lengthUnit: cmd.lengthUnit } : {}) };
+  const doc: EvaluatedDocument = { text: read.text, lines: read.text.split(/\r\n|\r|\n/), result, settings };
+  const { from, to, points } = cmd.range;
+  const made = cmd.kind === 'plot'
+    ? getPlot(doc, cmd.name, cmd.view === 'length'
+      ? { view: 'length', ...(from === undefined ? {} : { fromM: from }), ...(to === undefined ? {} : { toM: to }), ...(points === undefined ? {} : { points }) }
+      : { view: 'frequency', ...(from === undefined ? {} : { fromHz: from }), ...(to === undefined ? {} : { toHz: to }), ...(points === undefined ? {} : { points }) })
+    : getExport(doc, cmd.name, cmd.format, {
+      ...(from === undefined ? {} : { fromHz: from }), ...(to === undefined ? {} : { toHz: to }), ...(points === undefined ? {} : { points }),
+      ...(cmd.ports === undefined ? {} : { ports: cmd.ports }), source: cmd.file,
+    });
+  if ('error' in made) {
+    const entry = result.entries.find((e) => e.name === cmd.name);
+    if (!entry) return fail(`${cmd.file}: ${made.error}`);
+    const errors = result.diagnostics.filter((d) => d.severity === 'error' && d.range.start.line === entry.line);
+    deps.stderr(`${cmd.file}:${entry.line + 1}:${entry.nameRange.start.character + 1}: error ${made.error}\n`);
+    if (errors.length > 0) deps.stderr(formatDiagnostics(cmd.file, { ...result, diagnostics: errors }));
+    return errors.length > 0 ? EXIT.problems : EXIT.usage;
+  }
+  const content = 'svg' in made ? made.svg : made.text;
+  try {
+    await deps.writeFileAtomic(cmd.output, content);
+  } catch (e) {
+    return fail(`cannot write ${cmd.output}: ${errorText(e)}`);
+  }
+  deps.stderr(`stubwright: wrote ${cmd.output} (${'svg' in made ? made.title : `${cmd.kind === 'export' ? cmd.format : ''} of ${cmd.name}`})\n`);
+  return EXIT.ok;
 }

@@ -5,7 +5,7 @@
  */
 import { LINE_TYPES } from '../sheet/eval/lineTypes.js';
 import { DECLARATION_KEYWORDS } from '../sheet/parse/lineParser.js';
-import { STUB_KEYS, STUB_KINDS, SUBSTRATE_KEYS, type KeyTable } from '../sheet/schema.js';
+import { STUB_KEYS, STUB_KINDS, SUBSTRATE_KEYS, SWEEP_KEYS, type KeyTable } from '../sheet/schema.js';
 import type { Position } from '../sheet/types.js';
 import type { CompletionItem, EvaluatedDocument } from './types.js';
 
@@ -23,11 +23,13 @@ const SNIPPETS: Record<string, string> = {
   substrate: 'substrate ${1:board}: dk ${2:3.5}, df ${3:0.002}, height ${4:0.8 mm}, copper ${5:35 um}',
   line: 'line ${1:feed}: microstrip on ${2:board}, z0 ${3:50 ohm}',
   stub: 'stub ${1:tune}: ${2|open,short|} on ${3:feed}, ${4:capacitance 0.9 pF}, at ${5:2.45 GHz}',
+  sweep: 'sweep ${1:wide}: of ${2:tune}, over ${3:1 GHz .. 6 GHz}, points ${4:401}',
 };
 
 function keyTableFor(kind: string, type: string | undefined): KeyTable | undefined {
   if (kind === 'substrate') return SUBSTRATE_KEYS;
   if (kind === 'stub') return STUB_KEYS;
+  if (kind === 'sweep') return SWEEP_KEYS;
   if (kind === 'line' && type) return LINE_TYPES[type]?.keys;
   return undefined;
 }
@@ -38,7 +40,7 @@ const names = (doc: EvaluatedDocument, kind: string): CompletionItem[] =>
 export function getCompletions(doc: EvaluatedDocument, p: Position): CompletionItem[] {
   const before = (doc.lines[p.line] ?? '').slice(0, p.character);
   if (before.includes('#')) return [];
-  const decl = /^\s*(let|substrate|line|stub)\s+[A-Za-z_]\w*\s*[:=]/.exec(before);
+  const decl = /^\s*(let|substrate|line|stub|sweep)\s+[A-Za-z_]\w*\s*[:=]/.exec(before);
   if (!decl) {
     if (!/^\s*[A-Za-z_]*$/.test(before)) return [];
     return DECLARATION_KEYWORDS.flatMap((k) => [
@@ -72,6 +74,7 @@ export function getCompletions(doc: EvaluatedDocument, p: Position): CompletionI
   }
   const key = /^\s*(\w+)/.exec(current)?.[1] ?? '';
   const spec = table.keys[key]?.value;
+  if (spec?.type === 'name') return [...names(doc, 'stub'), ...names(doc, 'line')];
   const quantity = spec && 'quantity' in spec ? spec.quantity : undefined;
   return valueCompletions(doc, quantity);
 }

@@ -34,10 +34,19 @@ function brief(entry: SheetEntry, doc: EvaluatedDocument): string {
       return `${head}: Z0 ${show('z0_ohm', 'impedance')}, εeff ${num(entry.results, 'eps_eff')?.toFixed(4) ?? '—'}`;
     case 'stub':
       return `${head}: ${show('length_m', 'length')}, ${equivalent(entry, show) ?? 'resonant'} at ${show('frequency_hz', 'frequency')}`;
+    case 'sweep':
+      return `${head}: ${sweepLine(entry, show)}`;
   }
 }
 
 const row = (label: string, value: string) => `| ${label} | ${value} |`;
+
+/** A sweep in one line: what, over which range, how many points. */
+function sweepLine(entry: SheetEntry, show: ReturnType<typeof shower>): string {
+  const r = entry.results;
+  if (num(r, 'points') === null) return 'not evaluated';
+  return `${r.target_kind === 'line' ? `${show('length_m', 'length')} of line` : 'stub'} ${r.target}, ${show('from_hz', 'frequency')} … ${show('to_hz', 'frequency')}, ${num(r, 'points')} points`;
+}
 
 /** The full story of one declaration as a Markdown table plus model notes. */
 function summary(entry: SheetEntry, doc: EvaluatedDocument): string {
@@ -88,8 +97,20 @@ function summary(entry: SheetEntry, doc: EvaluatedDocument): string {
       rows.push(row('across the band', `${formatQuantity(num(r, 'band_min'), q)} … ${formatQuantity(num(r, 'band_max'), q)} (spread ${num(r, 'band_spread_pct')!.toFixed(1)} %)`));
     }
   }
+  if (entry.kind === 'sweep' && num(r, 'points') !== null) {
+    rows.push(row('sweep of', sweepLine(entry, show)));
+    if (r.target_kind === 'stub') {
+      rows.push(
+        row('reactance over the range', `${show('reactance_min_ohm', 'reactance')} … ${show('reactance_max_ohm', 'reactance')} (at the sampled points)`),
+        row('resonances in the range', num(r, 'resonance_count') === 0 ? 'none' : `${num(r, 'resonance_count')}: ${show('resonance_lowest_hz', 'frequency')} … ${show('resonance_highest_hz', 'frequency')}`),
+      );
+    } else {
+      rows.push(row('insertion loss, worst', `${num(r, 'insertion_loss_db_max')!.toFixed(3)} dB`), row('return loss, worst', `${num(r, 'return_loss_db_min')!.toFixed(1)} dB`));
+    }
+    rows.push(row('export reference', show('reference_ohm', 'impedance')));
+  }
   const head = `**${entry.name}** · ${entry.kind}`;
-  const notes = entry.details.filter((d) => /^(model|line |tolerance|band )/.test(d) || rows.length === 0);
+  const notes = entry.details.filter((d) => /^(model|line |tolerance|band |resonances in|no resonance)/.test(d) || rows.length === 0);
   const table = rows.length ? ['', '| | |', '|---|---|', ...rows].join('\n') : '';
   return [head + table, ...notes.map((n) => `\n_${n}_`)].join('\n');
 }

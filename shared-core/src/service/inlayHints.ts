@@ -46,6 +46,13 @@ export function hintLabel(entry: SheetEntry, settings: ServiceSettings): string 
       }
       return parts.join(' · ');
     }
+    case 'sweep': {
+      if (num(r, 'points') === null) return null;
+      const span = `${show('from_hz', 'frequency')} … ${show('to_hz', 'frequency')}, ${num(r, 'points')} pts`;
+      if (r.target_kind === 'line') return `${span} · IL ≤ ${num(r, 'insertion_loss_db_max')!.toFixed(2)} dB`;
+      const n = num(r, 'resonance_count') ?? 0;
+      return `${span} · ${n === 0 ? 'no resonance' : n === 1 ? '1 resonance' : `${n} resonances`}`;
+    }
   }
 }
 

@@ -10,6 +10,7 @@ import { getCodeActions } from './codeActions.js';
 import { getCompletions } from './completion.js';
 import { getHover } from './hover.js';
 import { getInlayHints } from './inlayHints.js';
+import { getExport, getPlot, getPlotTargets } from './plot.js';
 import { getDefinition, getReferences, getRename, prepareRename } from './navigation.js';
 import { getSymbols } from './symbols.js';
 import { DEFAULT_SETTINGS, type EvaluatedDocument, type ServiceSettings } from './types.js';
@@ -31,6 +32,12 @@ export interface SheetService {
   getReferences: typeof getReferences;
   prepareRename: typeof prepareRename;
   getRename: typeof getRename;
+  /** The SVG picture of a stub, line or sweep, with its markers. */
+  getPlot: typeof getPlot;
+  /** Every evaluated stub, line and sweep (for "Plot" code lenses). */
+  getPlotTargets: typeof getPlotTargets;
+  /** Touchstone or CSV text of a stub, line section or line. */
+  getExport: typeof getExport;
 }
 
 interface Stored {
@@ -64,5 +71,6 @@ export function createSheetService(): SheetService {
     close: (uri) => void docs.delete(uri),
     getDiagnostics: (doc) => doc.result.diagnostics,
     getHover, getInlayHints, getCodeActions, getCompletions, getSymbols, getDefinition, getReferences, prepareRename, getRename,
+    getPlot, getPlotTargets, getExport,
   };
 }

@@ -9,7 +9,9 @@
 import { compileExpression, createSafeMath, splitRange, splitTolerance, type CompileResult, type SafeMath } from './expr/index.js';
 import { evalLet, evalLine, evalSubstrate } from './eval/declarations.js';
 import type { Outcome } from './eval/outcome.js';
+import type { EntryModel } from './eval/models.js';
 import { evalStub } from './eval/stub.js';
+import { evalSweep } from './eval/sweep.js';
 import type { LetValue, SheetScope } from './eval/values.js';
 import { parseLine, type LocalDiagnostic, type ParsedDeclaration, type ParsedLine } from './parse/lineParser.js';
 import type { EntryKind, Range, SheetDiagnostic, SheetEntry, SheetOptions, SheetResult, SheetSymbol } from './types.js';
@@ -45,7 +47,7 @@ interface Decl {
 const LINE_BREAK = /\r\n|\r|\n/;
 
 /** Read stamps of names that have no evaluation (yet) in this call, by declared kind. */
-const UNEVALUATED: Record<EntryKind | 'undeclared', number> = { undeclared: -1, let: -2, substrate: -3, line: -4, stub: -5 };
+const UNEVALUATED: Record<EntryKind | 'undeclared', number> = { undeclared: -1, let: -2, substrate: -3, line: -4, stub: -5, sweep: -6 };
 
 /** A parsed line and its evaluation-cache key (kind + text without comment), computed once per text. */
 interface ParsedEntry {
@@ -166,7 +168,7 @@ export function evaluateSheet(text: string, previous?: SheetResult, options: She
       if (o.letValue.type === 'scalar') scope.scalars.set(d.decl.name.text, o.letValue.value);
     }
   }
-  // 4. Substrates, then lines, then stubs: each kind stands only on the kinds before it.
+  // 4. Substrates, lines, stubs, then sweeps: each kind stands only on the kinds before it.
   const resolved = {
     substrate: (n: string) => (kinds.get(n) === 'substrate' ? outcomes.get(n) : undefined),
     line: (n: string) => (kinds.get(n) === 'line' ? outcomes.get(n) : undefined),
@@ -174,6 +176,8 @@ export function evaluateSheet(text: string, previous?: SheetResult, options: She
   for (const d of decls) if (d.decl.kind === 'substrate') run(d, () => evalSubstrate(d.decl, scope));
   for (const d of decls) if (d.decl.kind === 'line') run(d, () => evalLine(d.decl, scope, resolved));
   for (const d of decls) if (d.decl.kind === 'stub') run(d, () => evalStub(d.decl, scope, resolved, marginPct), `\u0000${marginPct}`);
+  const sweepTargets = { ...resolved, stub: (n: string) => (kinds.get(n) === 'stub' ? outcomes.get(n) : undefined) };
+  for (const d of decls) if (d.decl.kind === 'sweep') run(d, () => evalSweep(d.decl, scope, sweepTargets, marginPct), `\u0000${marginPct}`);
 
   cache.outcomes = nextOutcomes;
   cache.compiled = usedExpr;
@@ -184,9 +188,13 @@ export function evaluateSheet(text: string, previous?: SheetResult, options: She
     symbols.set(d.decl.name.text, { name: d.decl.name.text, kind: d.decl.kind, declaration: rangeOf(d.line, d.decl.name.start, d.decl.name.end), references: [] });
   }
   const entries: SheetEntry[] = [];
+  const models = new Map<string, EntryModel>();
   for (const d of decls) {
     const o = outcomes.get(d.decl.name.text);
     if (!o) continue;
+    if (o.line) models.set(d.decl.name.text, { kind: 'line', line: o.line, frequencyHz: typeof o.results.frequency_hz === 'number' ? o.results.frequency_hz : null });
+    else if (o.stub) models.set(d.decl.name.text, { kind: 'stub', stub: o.stub });
+    else if (o.sweep) models.set(d.decl.name.text, { kind: 'sweep', sweep: o.sweep });
     for (const diag of o.diagnostics) at(d.line, diag);
     for (const r of o.references) symbols.get(r.name)?.references.push(rangeOf(d.line, r.start, r.end));
     const cached = entriesOf.get(d.decl.name.text)!;
@@ -206,7 +214,7 @@ export function evaluateSheet(text: string, previous?: SheetResult, options: She
   }
   entries.sort((a, b) => a.line - b.line);
   diagnostics.sort((a, b) => a.range.start.line - b.range.start.line || a.range.start.character - b.range.start.character);
-  return { entries, diagnostics, symbols, stats, cache };
+  return { entries, diagnostics, symbols, stats, cache, models };
 }
 
 /**

@@ -10,7 +10,8 @@ export type ValueType =
   | { type: 'range'; quantity: QuantityKind }
   | { type: 'flag' }
   | { type: 'copper' }
-  | { type: 'count' }
+  | { type: 'count'; min?: number; max?: number }
+  | { type: 'name' }
   | { type: 'choice'; options: readonly string[] };
 
 export interface KeySpec {
@@ -65,6 +66,19 @@ export const STUB_KEYS: KeyTable = {
 };
 
 export const STUB_KINDS = ['short', 'open'] as const;
+
+/** `sweep NAME: of STUB, over 1 GHz .. 6 GHz, points 201` or `sweep NAME: of LINE, length 12 mm, over …`. */
+export const SWEEP_KEYS: KeyTable = {
+  keys: {
+    of: { value: { type: 'name' }, doc: 'the stub or line to sweep' },
+    over: { value: { type: 'range', quantity: 'frequency' }, doc: 'frequency range, e.g. 1 GHz .. 6 GHz (default for a stub: around its "at", from the resonance below to just past the one above, its band included)' },
+    points: { value: { type: 'count', min: 2, max: 10001 }, doc: 'number of frequencies, evenly spaced, ends included (default 401)' },
+    length: { value: q('length'), doc: 'for a line: the length of the line section, which is swept as a two-port' },
+    ref: { value: q('impedance'), doc: 'reference impedance of exported S-parameters (default 50 Ω)' },
+  },
+  required: [['of']],
+  exclusive: [],
+};
 
 /** Resolves aliases: returns the canonical key or undefined. */
 export function canonicalKey(table: KeyTable, key: string): string | undefined {

@@ -70,7 +70,7 @@ export function observable(result: SheetResult): unknown {
 }
 
 /** An example sheet from the repository's `examples/` folder. */
-export function example(name: 'sensor-node' | 'warnings-tour'): string {
+export function example(name: 'sensor-node' | 'warnings-tour' | 'power-check'): string {
   return readFileSync(new URL(`../../../examples/${name}.rfsheet`, import.meta.url), 'utf8');
 }
 

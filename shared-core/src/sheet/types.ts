@@ -3,6 +3,7 @@
  * Positions are 0-based lines and 0-based UTF-16 columns (as LSP uses); the CLI's JSON adds 1.
  */
 
+import type { EntryModel } from './eval/models.js';
 import type { SafeMath } from './expr/index.js';
 
 export interface Position {
@@ -50,7 +51,7 @@ export interface SheetDiagnostic {
   data?: { lengthM?: number };
 }
 
-export type EntryKind = 'let' | 'substrate' | 'line' | 'stub';
+export type EntryKind = 'let' | 'substrate' | 'line' | 'stub' | 'sweep';
 
 /** A JSON-safe result value: SI numbers, strings for enumerations, flags, null where not defined. */
 export type ResultValue = number | string | boolean | null;
@@ -107,4 +108,9 @@ export interface SheetResult {
   stats: EvaluationStats;
   /** Opaque caches for the next incremental call; pass the whole result back as `previous`. */
   readonly cache: unknown;
+  /**
+   * What sweeps, plots and exports need of each evaluated line, stub and sweep (engine models,
+   * resolved ends, ranges), by name. Not part of the JSON results.
+   */
+  readonly models?: ReadonlyMap<string, EntryModel>;
 }

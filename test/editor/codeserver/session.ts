@@ -19,6 +19,8 @@ export interface Session {
   extensionId: string;
   /** The sheet on disk in the scratch workspace (the quick fix edits it there, never in examples/). */
   sheetPath: string;
+  /** The scratch workspace folder (the other sheets are copied there too). */
+  workspace: string;
   /** A second copy, in `api/`, for the API checks the probe extension runs. */
   apiSheetPath: string;
   /** The sheet's text as opened. */
@@ -30,8 +32,8 @@ export interface Session {
   close(): Promise<void>;
 }
 
-/** Starts everything; `file` is a sheet in examples/. */
-export async function startSession(file: string): Promise<Session> {
+/** Starts everything; `file` is a sheet in examples/ (opened), `others` more sheets copied beside it. */
+export async function startSession(file: string, others: string[] = []): Promise<Session> {
   const timings: Record<string, number> = {};
   const step = async <T>(name: string, fn: () => Promise<T> | T): Promise<T> => {
     const t = Date.now();
@@ -47,6 +49,7 @@ export async function startSession(file: string): Promise<Session> {
   mkdirSync(workspace, { recursive: true });
   const sheetPath = join(workspace, file);
   copyFileSync(join(ROOT, 'examples', file), sheetPath);
+  for (const other of others) copyFileSync(join(ROOT, 'examples', other), join(workspace, other));
 
   const apiSheetPath = join(workspace, 'api', `api-checks-${file}`);
   mkdirSync(join(workspace, 'api'));
@@ -66,6 +69,7 @@ export async function startSession(file: string): Promise<Session> {
       page,
       extensionId,
       sheetPath,
+      workspace,
       apiSheetPath,
       original: readFileSync(sheetPath, 'utf8'),
       timings,

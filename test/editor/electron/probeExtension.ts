@@ -9,7 +9,7 @@ import { ROOT } from '../codeserver/paths.js';
 import { buildSuite } from './buildSuite.js';
 
 /** Number of checks in suite/apiChecks.ts (a run that passes fewer did not reach them all). */
-export const API_CHECK_COUNT = 5;
+export const API_CHECK_COUNT = 6;
 
 /** Id and palette title of the probe's command. */
 export const PROBE_COMMAND = { id: 'stubwrightProbe.runApiChecks', title: 'Stubwright Probe: Run API Checks' };

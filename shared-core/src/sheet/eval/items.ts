@@ -14,6 +14,8 @@ export interface ItemValue {
   range?: [number, number];
   flag?: true;
   count?: number;
+  /** A name given as a value (`of tune`). */
+  name?: Span;
   choice?: string;
 }
 
@@ -98,11 +100,20 @@ function readOne(reader: ValueReader, table: KeyTable, key: string, item: Item):
     case 'count': {
       const n = reader.quantity(span, 'dimensionless', key, false);
       if (!n) return null;
-      if (!(Number.isInteger(n.si) && n.si >= 1 && n.si <= 1000)) {
-        reader.error(span.start, span.end, 'range', `${key} is a whole number from 1 (the shortest) upward`);
+      const [min, max] = [spec.min ?? 1, spec.max ?? 1000];
+      if (!(Number.isInteger(n.si) && n.si >= min && n.si <= max)) {
+        const message = spec.max === undefined ? `${key} is a whole number from 1 (the shortest) upward` : `${key} is a whole number from ${min} to ${max}`;
+        reader.error(span.start, span.end, 'range', message);
         return null;
       }
       return { key, item, count: n.si };
+    }
+    case 'name': {
+      if (!/^[A-Za-z_][A-Za-z0-9_]*$/.test(span.text)) {
+        reader.error(span.start, span.end, 'syntax', `${key} takes one name, e.g. "${key} tune"`);
+        return null;
+      }
+      return { key, item, name: span };
     }
   }
 }

@@ -2,6 +2,8 @@
 import type { LocalDiagnostic } from '../parse/lineParser.js';
 import type { EntryResults } from '../types.js';
 import type { LineBuild, SubstrateValue } from './lineTypes.js';
+import type { StubBuild } from './stubPoint.js';
+import type { SweepBuild } from './sweep.js';
 import type { LetValue } from './values.js';
 
 export interface Outcome {
@@ -16,4 +18,7 @@ export interface Outcome {
   letValue?: LetValue;
   substrate?: SubstrateValue;
   line?: LineBuild;
+  /** What a sweep, plot or export of a stub needs. */
+  stub?: StubBuild;
+  sweep?: SweepBuild;
 }

@@ -4,7 +4,7 @@
  * (near-resonance, resonance-in-band, detuned), taken at the worst tolerance corner.
  */
 import {
-  analyseBand, analyseEndedStub, analyseStub, lossyStubImpedance, stubResonanceBandwidth, electricalLengthAt, nearestResonances, resonancesInRange, synthesizeEndedStub, synthesizeStub,
+  analyseBand, analyseEndedStub, analyseStub, stubResonanceBandwidth, electricalLengthAt, nearestResonances, resonancesInRange, synthesizeEndedStub, synthesizeStub,
   type LineModel, type NearestResonances, type Resonance, type StubEnd, type StubKind, type StubTarget,
 } from '../../engine/index.js';
 import { formatQuantity } from '../format.js';
@@ -15,6 +15,7 @@ import { readItems, si, tol, type ItemValues } from './items.js';
 import type { Outcome } from './outcome.js';
 import { powerStress } from './stubPower.js';
 import { resolveEnd } from './stubEnds.js';
+import { stubPointAt, type StubBuild, type StubPoint } from './stubPoint.js';
 import type { LineBuild } from './lineTypes.js';
 import { ValueReader, type SheetScope } from './values.js';
 
@@ -79,11 +80,12 @@ export function evalStub(decl: ParsedDeclaration, scope: SheetScope, resolved: R
   // Resonance searches work on the effective length: drawn + open-end extension or via equivalent.
   const effectiveM = lengthM + ended.extraM;
   const a = analyseEndedStub(ended.end, line.model, lengthM, f);
+  const point = stubPointAt({ kind, end: ended.end, line, lengthM }, f, lengthM, a);
   const near = nearestResonances(kind, line.model, effectiveM, f);
   const finite = (x: number) => (Number.isFinite(x) ? x : null);
   const results: Outcome['results'] = {
     length_m: lengthM, frequency_hz: f, electrical_deg: a.electricalDeg, wavelength_fraction: a.wavelengthFraction,
-    reactance_ohm: finite(a.reactance), resistance_ohm: finite(a.resistance), inductance_h: a.inductance, capacitance_f: a.capacitance,
+    reactance_ohm: finite(point.reactance), resistance_ohm: finite(point.resistance), inductance_h: a.inductance, capacitance_f: a.capacitance,
     behaviour: a.behaviour, resonance_below_hz: near.below?.frequencyHz ?? null, resonance_above_hz: near.above.frequencyHz,
     resonance_margin_pct: near.marginPct, resonance_nearest_hz: near.nearest.frequencyHz, resonant_intended: values.has('resonant'),
     effective_length_m: effectiveM, guided_wavelength_m: a.guidedWavelengthM, end_extension_m: ended.endExtensionM, via_inductance_h: ended.viaInductanceH,
@@ -161,7 +163,7 @@ export function evalStub(decl: ParsedDeclaration, scope: SheetScope, resolved: R
       });
     }
   }
-  Object.assign(results, lossFigures(kind, line, a.reactance, effectiveM, f, near.nearest.quarterWaves, values.has('resonant')));
+  Object.assign(results, lossFigures(kind, line, point, effectiveM, f, near.nearest.quarterWaves, values.has('resonant')));
   if (!target && Number.isFinite(a.reactance) && a.reactance !== 0) {
     const swapped = swapLength(kind, line, a.reactance, f);
     if (swapped !== null) results.swap_length_m = swapped;
@@ -170,7 +172,8 @@ export function evalStub(decl: ParsedDeclaration, scope: SheetScope, resolved: R
   if (power) diagnostics.push(...powerStress(results, power, ended, line, lengthM, f, a.zin, decl.name.text));
   details.push(`line ${head.on.text}: ${line.modelName}`);
   const synthesized = target ? [{ key: 'length', valueSI: lengthM, start: lengthItem.item.span.start, end: lengthItem.item.span.end }] : [];
-  return finish(reader, { results, details, synthesized, diagnostics });
+  const stub: StubBuild = { kind, end: ended.end, line, lineName: head.on.text, lengthM, frequencyHz: f, band: band ?? null, resonant };
+  return finish(reader, { results, details, synthesized, diagnostics, stub });
 }
 
 /** Most resonances a band check enumerates (a stub hundreds of wavelengths long, or a band decades wide). */
@@ -255,16 +258,9 @@ function swapLength(kind: StubKind, line: LineBuild, reactance: number, f: numbe
  * underestimates away from resonance), the element Q = |X|/R, and for an intended resonance its
  * resonator Q and 3 dB bandwidth. Lines without a loss split keep the real-Z0 resistance.
  */
-function lossFigures(kind: StubKind, line: LineBuild, reactance: number, effectiveM: number, f: number, quarterWaves: number, resonant: boolean): Outcome['results'] {
+function lossFigures(kind: StubKind, line: LineBuild, point: StubPoint, effectiveM: number, f: number, quarterWaves: number, resonant: boolean): Outcome['results'] {
   const out: Outcome['results'] = {};
-  const lossyAtF = line.lossy?.(f);
-  if (lossyAtF && lossyAtF.alpha > 0) {
-    const z = lossyStubImpedance(kind, lossyAtF, effectiveM, f);
-    if (Number.isFinite(z.re) && z.re > 0) {
-      out.resistance_ohm = z.re;
-      out.q = Number.isFinite(reactance) ? Math.abs(reactance) / z.re : null;
-    }
-  }
+  if (point.lossyResistance) out.q = Number.isFinite(point.reactance) ? Math.abs(point.reactance) / point.resistance : null;
   if (resonant && line.model(f).alpha > 0) {
     const r = stubResonanceBandwidth(kind, line.model, effectiveM, quarterWaves);
     out.resonator_q = r.q;

@@ -184,7 +184,7 @@ describe('syntax errors, each at its exact columns', () => {
   ])('%s: %j', (_label, text, start, end, slice) => {
     const e = error(text);
     expect([e.code, e.start, e.end, e.slice]).toEqual(['syntax', start, end, slice]);
-    expect(e.message).toBe('a line starts with let, substrate, line or stub; start free text with #');
+    expect(e.message).toBe('a line starts with let, substrate, line, stub or sweep; start free text with #');
   });
 
   it.each([

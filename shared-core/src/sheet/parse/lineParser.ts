@@ -6,6 +6,7 @@
  *   substrate NAME: key value, key value…     a laminate
  *   line NAME: TYPE [on SUBSTRATE], key value…
  *   stub NAME: short|open on LINE, key value…
+ *   sweep NAME: of STUB_OR_LINE, key value…     a frequency sweep (for plots and export)
  *
  * Items are split at top-level commas (commas inside parentheses belong to function calls).
  * All offsets are 0-based UTF-16 columns in the line, `end` exclusive.
@@ -40,7 +41,7 @@ export interface Item {
   span: Span;
 }
 
-export type DeclKind = 'let' | 'substrate' | 'line' | 'stub';
+export type DeclKind = 'let' | 'substrate' | 'line' | 'stub' | 'sweep';
 
 export interface ParsedDeclaration {
   kind: DeclKind;
@@ -59,7 +60,7 @@ export interface ParsedLine {
   errors: LocalDiagnostic[];
 }
 
-export const DECLARATION_KEYWORDS: readonly DeclKind[] = ['let', 'substrate', 'line', 'stub'];
+export const DECLARATION_KEYWORDS: readonly DeclKind[] = ['let', 'substrate', 'line', 'stub', 'sweep'];
 const IDENT = /[A-Za-z_][A-Za-z0-9_]*/y;
 /** Longest line the parser looks at; longer lines get a `limit` diagnostic. */
 export const MAX_LINE_LENGTH = 4000;
@@ -102,7 +103,7 @@ export function parseLine(text: string): ParsedLine {
     const end = keyword ? keyword.end : spanOf(code, start, code.length).end;
     return {
       declaration: null,
-      errors: [err(start, end, 'syntax', 'a line starts with let, substrate, line or stub; start free text with #')],
+      errors: [err(start, end, 'syntax', 'a line starts with let, substrate, line, stub or sweep; start free text with #')],
     };
   }
   const kind = keyword.text as DeclKind;
@@ -135,8 +136,8 @@ export function parseLine(text: string): ParsedLine {
       const example = kind === 'line' ? 'microstrip on' : 'short on';
       errors.push(err(first.key.start, first.key.end, 'missing', `${what} goes before "on": ${example} ${first.value?.text || 'NAME'}`));
     } else head = parseHead(first, errors);
-  } else if (kind !== 'substrate' || items.length === 0) {
-    const what = kind === 'substrate' ? 'dk …, height …' : kind === 'line' ? 'a line type (microstrip, ideal, coax)' : 'short or open on LINE';
+  } else if ((kind !== 'substrate' && kind !== 'sweep') || items.length === 0) {
+    const what = kind === 'substrate' ? 'dk …, height …' : kind === 'line' ? 'a line type (microstrip, ideal, coax)' : kind === 'sweep' ? '"of STUB" (or "of LINE, length L")' : 'short or open on LINE';
     errors.push(err(sepAt, sepAt + 1, 'missing', `${kind} ${name.text} needs ${what} after ":"`));
   }
   return { declaration: { kind, name, value: null, head, items, span }, errors };

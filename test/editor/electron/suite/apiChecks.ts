@@ -1,7 +1,7 @@
 /**
  * The extension checked through VS Code's own API, from inside an extension host: activation on
- * opening a sheet, diagnostics, hover, inlay hints and the near-resonance quick fix, all through the
- * same provider commands the editor UI uses. Runs under @vscode/test-electron (index.ts) and, in
+ * opening a sheet, diagnostics, hover, inlay hints, the near-resonance quick fix and the plot code
+ * lenses, all through the same provider commands the editor UI uses. Runs under @vscode/test-electron (index.ts) and, in
  * the code-server end-to-end test, from a probe extension (probe.ts).
  */
 import * as assert from 'node:assert/strict';
@@ -27,7 +27,8 @@ const labelOf = (h: vscode.InlayHint): string => (typeof h.label === 'string' ? 
 
 /**
  * Runs every check on the sheet at `sheet` (a copy of examples/warnings-tour.rfsheet; the quick fix
- * edits it). Returns the names of the checks passed; throws on the first failure.
+ * edits it), the last one opening plot panels from the code lenses. Returns the names of the checks
+ * passed; throws on the first failure.
  */
 export async function runApiChecks(sheet: vscode.Uri): Promise<string[]> {
   const passed: string[] = [];
@@ -93,6 +94,32 @@ export async function runApiChecks(sheet: vscode.Uri): Promise<string[]> {
     const hintAfter = await hintOn(line);
     assert.match(hintAfter, /\d/);
     assert.notEqual(hintAfter, hintBefore, 'the inlay hint is recomputed for the new length');
+  });
+
+  await check('a "Plot" code lens above every stub opens its plot panel, one panel per sheet', async () => {
+    const lenses = await waitFor('plot code lenses', 20_000, async () => {
+      const all = await vscode.commands.executeCommand<vscode.CodeLens[]>('vscode.executeCodeLensProvider', doc.uri);
+      const plots = all.filter((l) => l.command?.command === 'stubwright.showPlot');
+      return plots.length > 0 ? plots : null;
+    });
+    for (const line of stubLines) {
+      const lens = lenses.find((l) => l.range.start.line === line);
+      const name = /^stub\s+(\w+)/.exec(doc.lineAt(line).text)![1]!;
+      assert.ok(lens, `a plot lens on line ${line + 1}`);
+      assert.equal(lens.command!.title, 'Plot reactance');
+      assert.deepEqual(lens.command!.arguments, [doc.uri.toString(), name]);
+    }
+    const sheetName = doc.uri.path.slice(doc.uri.path.lastIndexOf('/') + 1);
+    const plotTabs = () => vscode.window.tabGroups.all.flatMap((g) => g.tabs)
+      .filter((t) => t.input instanceof vscode.TabInputWebview && t.input.viewType.includes('stubwright.plot') && t.label.endsWith(`(${sheetName})`));
+    const [first, second] = lenses.filter((l) => stubLines.includes(l.range.start.line));
+    for (const lens of [first!, second!]) {
+      const name = lens.command!.arguments![1] as string;
+      await vscode.commands.executeCommand(lens.command!.command, ...lens.command!.arguments!);
+      await waitFor(`the plot panel of ${name}`, 20_000, () => plotTabs().some((t) => t.label.startsWith(`Plot: ${name} `)));
+    }
+    assert.equal(plotTabs().length, 1, `the second stub of the same sheet reuses the panel: ${plotTabs().map((t) => t.label).join(', ')}`);
+    await vscode.window.tabGroups.close(plotTabs());
   });
   return passed;
 }
