@@ -6,7 +6,8 @@
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { evaluateSheet } from './evaluate.js';
+import { evaluateSheet, evaluationPath } from './evaluate.js';
+import { createSafeMath } from './expr/index.js';
 import { example, expectRangesInside, observable } from './testUtil.js';
 import type { SheetOptions } from './types.js';
 
@@ -134,3 +135,77 @@ describe('random sheets from fragments of the examples', () => {
     }), runs(0.2));
   });
 });
+
+describe('the line-edit path (a few lines changed, names and let dependencies kept)', () => {
+  const math = createSafeMath(); // one locked mathjs instance: a fresh one per cold evaluation costs 0.2 s
+  const BASE = [example('sensor-node'), example('warnings-tour').replace(/^let f0 = .*$/m, '').replace(/^let band = .*$/m, '')].join('\n');
+  const lines = BASE.split('\n');
+  const declLines = lines.flatMap((l, i) => (/^(let|substrate|line|stub|sweep) \w+( =|:)/.test(l) ? [i] : []));
+  /** Edits after the name: replace or insert in the value part, as typing does. */
+  const valueEdit = fc.record({
+    line: fc.constantFrom(...declLines),
+    at: fc.nat(),
+    del: fc.integer({ min: 0, max: 4 }),
+    insert: fc.constantFrom('', '1', '9', '0.', ' mm', ' GHz', ', resonant', ', band band', ' ± 2 %', '(', ')', '±', '*2', ' # note', 'x', ', via 0.3 mm', ', end ideal'),
+  });
+  const apply = (text: string[], e: { line: number; at: number; del: number; insert: string }): string[] => {
+    const out = [...text];
+    const l = out[e.line]!;
+    const head = l.search(/[:=]/) + 1;
+    const at = head + (e.at % (l.length - head + 1));
+    out[e.line] = l.slice(0, at) + e.insert + l.slice(at + e.del);
+    return out;
+  };
+
+  it('gives exactly the cold result, and is taken for most value edits', () => {
+    let taken = 0;
+    let total = 0;
+    fc.assert(fc.property(fc.array(valueEdit, { minLength: 1, maxLength: 4 }), (edits) => {
+      let previous = evaluateSheet(BASE, undefined, { math });
+      let current = lines;
+      for (const e of edits) {
+        current = apply(current, e);
+        const text = current.join('\n');
+        const warm = evaluateSheet(text, previous, { math });
+        total++;
+        if (evaluationPath(warm) === 'line-edit') taken++;
+        expect(observable(warm)).toEqual(observable(evaluateSheet(text, undefined, { math })));
+        previous = warm;
+      }
+    }), runs(0.4));
+    expect(taken / total).toBeGreaterThan(0.5);
+  });
+
+  it('propagates through readers: a let, a substrate, a line and a stub edit re-evaluate exactly what reads them', () => {
+    const edit = (from: string, to: string) => {
+      const text = BASE.replace(from, to);
+      expect(text).not.toBe(BASE);
+      const warm = evaluateSheet(text, evaluateSheet(BASE));
+      expect(evaluationPath(warm)).toBe('line-edit');
+      expect(observable(warm)).toEqual(observable(evaluateSheet(text)));
+      return warm.stats.evaluated;
+    };
+    expect(edit('stub tune: open on feed, capacitance 0.9 pF', 'stub tune: open on feed, capacitance 1.2 pF')).toBe(1);
+    expect(edit('let f0 = 2.45 GHz', 'let f0 = 2.40 GHz')).toBeGreaterThan(5);
+    expect(edit('line thin: microstrip on board, width 0.4 mm', 'line thin: microstrip on board, width 0.5 mm')).toBeGreaterThanOrEqual(2);
+  });
+
+  it('falls back to the full path for a rename, a new line, a new let dependency, or many changed lines', () => {
+    const full = (text: string, previous = evaluateSheet(BASE)) => {
+      const warm = evaluateSheet(text, previous);
+      expect(evaluationPath(warm)).toBe('full');
+      expect(observable(warm)).toEqual(observable(evaluateSheet(text)));
+    };
+    full(BASE.replace('stub tune:', 'stub tuner:'));
+    full(BASE.replace('stub tune:', 'stub  tune:'));
+    full(BASE.replace('let f0 = 2.45 GHz', 'let f0 = 2.45 GHz\n'));
+    full(BASE.replace('let f0 = 2.45 GHz', 'let f0 = band'));
+    full(BASE.replace(/ mm/g, ' mil'));
+    // An older result is only a cache: patching it would lose the later edit.
+    const cold = evaluateSheet(BASE);
+    const first = evaluateSheet(BASE.replace('0.9 pF', '1 pF'), cold);
+    expect(evaluationPath(first)).toBe('line-edit');
+    full(BASE.replace('0.9 pF', '1.1 pF'), cold);
+  });
+});
+

@@ -5,6 +5,15 @@
  * each declaration re-evaluated only when its text or something it read (a let, a substrate, a
  * line) changed since the previous call. Pass the previous SheetResult back as `previous`.
  * Never throws: every problem becomes a located diagnostic.
+ *
+ * Two paths give the same result (the incremental tests compare both with a cold evaluation):
+ * - the full path walks every line: parse lookups, evaluation order, and assembly of entries,
+ *   diagnostics and symbols, reusing each declaration whose text and reads are unchanged;
+ * - the line-edit path (evaluateLineEdit) serves the common keystroke: the same number of lines,
+ *   a few lines changed, no declaration renamed, moved or added and no let's dependencies changed.
+ *   It re-evaluates the edited declarations and, transitively, their readers, and patches the
+ *   previous result, so its cost follows the edit, not the sheet's length. Anything else falls
+ *   back to the full path.
  */
 import { compileExpression, createSafeMath, splitRange, splitTolerance, type CompileResult, type SafeMath } from './expr/index.js';
 import { evalLet, evalLine, evalSubstrate } from './eval/declarations.js';
@@ -21,6 +30,8 @@ export const DEFAULT_MARGIN_PCT = 10;
 
 interface CachedOutcome {
   outcome: Outcome;
+  /** Its key in Cache.outcomes (declaration text, plus the margin for stubs and sweeps). */
+  key: string;
   stamp: number;
   /** Stamp of every name read at evaluation time (negative: not evaluated yet, see UNEVALUATED). */
   readStamps: Map<string, number>;
@@ -36,7 +47,39 @@ interface Cache {
   parsed: Map<string, ParsedEntry>;
   outcomes: Map<string, CachedOutcome>;
   nextStamp: number;
+  /** What the line-edit path needs of the last evaluation; valid only for `last.owner`. */
+  last?: SheetState;
 }
+
+/** The last evaluation's working state, kept so a small edit can patch it (see the header). */
+interface SheetState {
+  owner: SheetResult;
+  /** Which path produced `owner`. */
+  path: 'full' | 'line-edit';
+  marginPct: number;
+  lines: string[];
+  byName: Map<string, Decl>;
+  kinds: Map<string, EntryKind>;
+  scope: SheetScope;
+  stamps: Map<string, number>;
+  outcomes: Map<string, Outcome>;
+  entriesOf: Map<string, CachedOutcome>;
+  /** Position of each let in evaluation (dependency) order. */
+  letRank: Map<string, number>;
+  cyclic: Set<string>;
+  /** For each name, the declarations whose evaluation read it. */
+  readers: Map<string, Set<string>>;
+  entries: SheetEntry[];
+  entryIndex: Map<string, number>;
+  diagnostics: SheetDiagnostic[];
+  symbols: Map<string, SheetSymbol>;
+  models: Map<string, EntryModel>;
+}
+
+/** More changed lines than this in one call take the full path (a paste, a search-and-replace). */
+const MAX_EDITED_LINES = 16;
+
+const KIND_RANK: Record<EntryKind, number> = { let: 0, substrate: 1, line: 2, stub: 3, sweep: 4 };
 
 interface Decl {
   line: number;
@@ -69,6 +112,110 @@ export function evaluateSheet(text: string, previous?: SheetResult, options: She
   const marginPct = options.marginPct ?? DEFAULT_MARGIN_PCT;
   const cache = (previous?.cache as Cache | undefined) ?? newCache(options.math);
   const lines = text.split(LINE_BREAK);
+  const last = cache.last;
+  if (last && last.owner === previous && last.marginPct === marginPct) {
+    const patched = evaluateLineEdit(cache, last, lines);
+    if (patched) return patched;
+  }
+  return evaluateFull(cache, lines, marginPct);
+}
+
+/**
+ * Which path produced a result (see the header): for tests and the benchmark. Undefined once a
+ * later evaluation has taken over the result's cache.
+ */
+export function evaluationPath(result: SheetResult): 'full' | 'line-edit' | undefined {
+  const last = (result.cache as Cache | undefined)?.last;
+  return last?.owner === result ? last.path : undefined;
+}
+
+/** The evaluation of one declaration, by kind (the kinds before it are already in `outcomes`). */
+function evaluator(d: Decl, scope: SheetScope, kinds: Map<string, EntryKind>, outcomes: Map<string, Outcome>, marginPct: number): { fresh: () => Outcome; extraKey: string } {
+  const of = (kind: EntryKind) => (n: string) => (kinds.get(n) === kind ? outcomes.get(n) : undefined);
+  const resolved = { substrate: of('substrate'), line: of('line') };
+  switch (d.decl.kind) {
+    case 'let': return { fresh: () => evalLet(d.decl, scope), extraKey: '' };
+    case 'substrate': return { fresh: () => evalSubstrate(d.decl, scope), extraKey: '' };
+    case 'line': return { fresh: () => evalLine(d.decl, scope, resolved), extraKey: '' };
+    case 'stub': return { fresh: () => evalStub(d.decl, scope, resolved, marginPct), extraKey: `\u0000${marginPct}` };
+    case 'sweep': return { fresh: () => evalSweep(d.decl, scope, { ...resolved, stub: of('stub') }, marginPct), extraKey: `\u0000${marginPct}` };
+  }
+}
+
+/**
+ * Runs (or reuses) one declaration's evaluation and records it in the state's maps. Reuse needs
+ * the same text and the same stamp on every name it read.
+ */
+function makeRunner(cache: Cache, st: Pick<SheetState, 'stamps' | 'kinds' | 'outcomes' | 'entriesOf' | 'scope'>, nextOutcomes: Map<string, CachedOutcome>, stats: { evaluated: number; reused: number }, marginPct: number) {
+  // A name not evaluated yet (declared further on in evaluation order, or a let in a cycle) stands
+  // for its kind: the messages about it ("l is a line, not a value") depend on the kind alone.
+  const current = (n: string) => st.stamps.get(n) ?? UNEVALUATED[st.kinds.get(n) ?? 'undeclared'];
+  return (d: Decl): CachedOutcome => {
+    const { fresh, extraKey } = evaluator(d, st.scope, st.kinds, st.outcomes, marginPct);
+    const key = d.key + extraKey;
+    const cached = cache.outcomes.get(key);
+    let entry: CachedOutcome;
+    if (cached && stampsMatch(cached.readStamps, current)) {
+      entry = cached;
+      stats.reused++;
+    } else {
+      let outcome: Outcome;
+      try {
+        outcome = fresh();
+      } catch (e) {
+        outcome = internalFailure(d, e);
+      }
+      entry = { outcome, key, stamp: cache.nextStamp++, readStamps: new Map([...outcome.reads].map((n) => [n, current(n)])) };
+      stats.evaluated++;
+    }
+    nextOutcomes.set(key, entry);
+    const name = d.decl.name.text;
+    st.stamps.set(name, entry.stamp);
+    st.outcomes.set(name, entry.outcome);
+    st.entriesOf.set(name, entry);
+    if (d.decl.kind === 'let') {
+      const v = entry.outcome.letValue;
+      if (v) st.scope.lets.set(name, v);
+      else st.scope.lets.delete(name);
+      if (v?.type === 'scalar') st.scope.scalars.set(name, v.value);
+      else st.scope.scalars.delete(name);
+    }
+    return entry;
+  };
+}
+
+/** The entry shown for a declaration on line `d.line`, built once per placement of its outcome. */
+function viewOf(d: Decl, cached: CachedOutcome): SheetEntry {
+  if (cached.view?.line !== d.line) {
+    const o = cached.outcome;
+    cached.view = {
+      line: d.line, kind: d.decl.kind, name: d.decl.name.text,
+      nameRange: rangeOf(d.line, d.decl.name.start, d.decl.name.end),
+      range: rangeOf(d.line, d.decl.span.start, d.decl.span.end),
+      results: o.results, details: o.details,
+      synthesized: o.synthesized.map((s) => ({ key: s.key, valueSI: s.valueSI, range: rangeOf(d.line, s.start, s.end) })),
+    };
+  }
+  return cached.view;
+}
+
+function modelOf(o: Outcome): EntryModel | undefined {
+  if (o.line) return { kind: 'line', line: o.line, frequencyHz: typeof o.results.frequency_hz === 'number' ? o.results.frequency_hz : null };
+  if (o.stub) return { kind: 'stub', stub: o.stub };
+  if (o.sweep) return { kind: 'sweep', sweep: o.sweep };
+  return undefined;
+}
+
+function addReader(readers: Map<string, Set<string>>, read: string, reader: string): void {
+  let set = readers.get(read);
+  if (!set) readers.set(read, (set = new Set()));
+  set.add(reader);
+}
+
+const byPosition = (a: SheetDiagnostic, b: SheetDiagnostic) => a.range.start.line - b.range.start.line || a.range.start.character - b.range.start.character;
+
+/** The full path: every line looked at, every declaration evaluated or reused. */
+function evaluateFull(cache: Cache, lines: string[], marginPct: number): SheetResult {
   const diagnostics: SheetDiagnostic[] = [];
   const at = (line: number, d: LocalDiagnostic) => diagnostics.push(toSheetDiagnostic(line, clampToLine(d, lines[line]!.length), declRange));
 
@@ -101,7 +248,8 @@ export function evaluateSheet(text: string, previous?: SheetResult, options: She
     return d ? rangeOf(d.line, d.decl.name.start, d.decl.name.end) : undefined;
   }
 
-  // 2. Scope shared by all declarations, filled as they evaluate.
+  // 2. Scope shared by all declarations, filled as they evaluate. `usedExpr` becomes the cache's
+  //    compiled map, so the scope's compile keeps filling it on the line-edit path.
   const usedExpr = new Map<string, CompileResult>();
   const compile = (t: string) => {
     let c = usedExpr.get(t) ?? cache.compiled.get(t);
@@ -111,38 +259,10 @@ export function evaluateSheet(text: string, previous?: SheetResult, options: She
   };
   const kinds = new Map<string, EntryKind>(decls.map((d) => [d.decl.name.text, d.decl.kind]));
   const scope: SheetScope = { math: cache.math, compile, scalars: new Map<string, Value>(), lets: new Map<string, LetValue>(), kinds };
-  const stamps = new Map<string, number>();
-  const outcomes = new Map<string, Outcome>();
+  const st = { stamps: new Map<string, number>(), kinds, outcomes: new Map<string, Outcome>(), entriesOf: new Map<string, CachedOutcome>(), scope };
   const nextOutcomes = new Map<string, CachedOutcome>();
   const stats = { evaluated: 0, reused: 0 };
-  const entriesOf = new Map<string, CachedOutcome>();
-
-  const run = (d: Decl, fresh: () => Outcome, extraKey = '') => {
-    const key = d.key + extraKey;
-    const cached = cache.outcomes.get(key);
-    // A name not evaluated yet (declared further on in evaluation order, or a let in a cycle) stands
-    // for its kind: the messages about it ("l is a line, not a value") depend on the kind alone.
-    const current = (n: string) => stamps.get(n) ?? UNEVALUATED[kinds.get(n) ?? 'undeclared'];
-    let entry: CachedOutcome;
-    if (cached && stampsMatch(cached.readStamps, current)) {
-      entry = cached;
-      stats.reused++;
-    } else {
-      let outcome: Outcome;
-      try {
-        outcome = fresh();
-      } catch (e) {
-        outcome = internalFailure(d, e);
-      }
-      entry = { outcome, stamp: cache.nextStamp++, readStamps: new Map([...outcome.reads].map((n) => [n, current(n)])) };
-      stats.evaluated++;
-    }
-    nextOutcomes.set(key, entry);
-    stamps.set(d.decl.name.text, entry.stamp);
-    outcomes.set(d.decl.name.text, entry.outcome);
-    entriesOf.set(d.decl.name.text, entry);
-    return entry.outcome;
-  };
+  const run = makeRunner(cache, st, nextOutcomes, stats, marginPct);
 
   // 3. Lets in dependency order; cycles are reported and left unevaluated.
   const lets = decls.filter((d) => d.decl.kind === 'let');
@@ -161,23 +281,9 @@ export function evaluateSheet(text: string, previous?: SheetResult, options: She
     const d = byName.get(name)!;
     at(d.line, { start: d.decl.name.start, end: d.decl.name.end, severity: 'error', code: 'cycle', message: `${name} depends on itself: ${path.join(' → ')}; break the loop with a plain value` });
   }
-  for (const d of order) {
-    const o = run(d, () => evalLet(d.decl, scope));
-    if (o.letValue) {
-      scope.lets.set(d.decl.name.text, o.letValue);
-      if (o.letValue.type === 'scalar') scope.scalars.set(d.decl.name.text, o.letValue.value);
-    }
-  }
+  for (const d of order) run(d);
   // 4. Substrates, lines, stubs, then sweeps: each kind stands only on the kinds before it.
-  const resolved = {
-    substrate: (n: string) => (kinds.get(n) === 'substrate' ? outcomes.get(n) : undefined),
-    line: (n: string) => (kinds.get(n) === 'line' ? outcomes.get(n) : undefined),
-  };
-  for (const d of decls) if (d.decl.kind === 'substrate') run(d, () => evalSubstrate(d.decl, scope));
-  for (const d of decls) if (d.decl.kind === 'line') run(d, () => evalLine(d.decl, scope, resolved));
-  for (const d of decls) if (d.decl.kind === 'stub') run(d, () => evalStub(d.decl, scope, resolved, marginPct), `\u0000${marginPct}`);
-  const sweepTargets = { ...resolved, stub: (n: string) => (kinds.get(n) === 'stub' ? outcomes.get(n) : undefined) };
-  for (const d of decls) if (d.decl.kind === 'sweep') run(d, () => evalSweep(d.decl, scope, sweepTargets, marginPct), `\u0000${marginPct}`);
+  for (const kind of ['substrate', 'line', 'stub', 'sweep'] as const) for (const d of decls) if (d.decl.kind === kind) run(d);
 
   cache.outcomes = nextOutcomes;
   cache.compiled = usedExpr;
@@ -189,32 +295,161 @@ export function evaluateSheet(text: string, previous?: SheetResult, options: She
   }
   const entries: SheetEntry[] = [];
   const models = new Map<string, EntryModel>();
+  const readers = new Map<string, Set<string>>();
   for (const d of decls) {
-    const o = outcomes.get(d.decl.name.text);
-    if (!o) continue;
-    if (o.line) models.set(d.decl.name.text, { kind: 'line', line: o.line, frequencyHz: typeof o.results.frequency_hz === 'number' ? o.results.frequency_hz : null });
-    else if (o.stub) models.set(d.decl.name.text, { kind: 'stub', stub: o.stub });
-    else if (o.sweep) models.set(d.decl.name.text, { kind: 'sweep', sweep: o.sweep });
+    const name = d.decl.name.text;
+    const cached = st.entriesOf.get(name);
+    if (!cached) {
+      entries.push({ line: d.line, kind: d.decl.kind, name, nameRange: rangeOf(d.line, d.decl.name.start, d.decl.name.end), range: rangeOf(d.line, d.decl.span.start, d.decl.span.end), results: {}, details: [], synthesized: [] });
+      continue;
+    }
+    const o = cached.outcome;
+    const model = modelOf(o);
+    if (model) models.set(name, model);
+    for (const r of o.reads) addReader(readers, r, name);
     for (const diag of o.diagnostics) at(d.line, diag);
     for (const r of o.references) symbols.get(r.name)?.references.push(rangeOf(d.line, r.start, r.end));
-    const cached = entriesOf.get(d.decl.name.text)!;
-    if (cached.view?.line !== d.line) {
-      cached.view = {
-        line: d.line, kind: d.decl.kind, name: d.decl.name.text,
-        nameRange: rangeOf(d.line, d.decl.name.start, d.decl.name.end),
-        range: rangeOf(d.line, d.decl.span.start, d.decl.span.end),
-        results: o.results, details: o.details,
-        synthesized: o.synthesized.map((s) => ({ key: s.key, valueSI: s.valueSI, range: rangeOf(d.line, s.start, s.end) })),
-      };
+    entries.push(viewOf(d, cached));
+  }
+  diagnostics.sort(byPosition);
+  const entryIndex = new Map(entries.map((e, i) => [e.name, i]));
+  const result: SheetResult = { entries, diagnostics, symbols, stats, cache, models };
+  cache.last = {
+    owner: result, path: 'full', marginPct, lines, byName, kinds, scope, stamps: st.stamps, outcomes: st.outcomes, entriesOf: st.entriesOf,
+    letRank: new Map(order.map((d, i) => [d.decl.name.text, i])), cyclic: new Set(cyclic.keys()), readers,
+    entries, entryIndex, diagnostics, symbols, models,
+  };
+  return result;
+}
+
+/**
+ * The line-edit path (see the header): patches the last result for a few changed lines, or
+ * returns undefined, having changed nothing, when the edit needs the full path.
+ */
+function evaluateLineEdit(cache: Cache, st: SheetState, lines: string[]): SheetResult | undefined {
+  const old = st.lines;
+  if (lines.length !== old.length) return undefined;
+  const changed: number[] = [];
+  for (let i = 0; i < lines.length; i++) {
+    if (lines[i] !== old[i] && changed.push(i) > MAX_EDITED_LINES) return undefined;
+  }
+
+  // Checks only, nothing changed yet: every edited line keeps its declaration's name (at the same
+  // columns) and kind, is that name's first declaration, and a let keeps the names it reads.
+  const edits: { line: number; entry: ParsedEntry; decl?: Decl }[] = [];
+  for (const line of changed) {
+    const before = (cache.parsed.get(old[line]!) ?? parseEntry(old[line]!)).parsed.declaration;
+    const entry = cache.parsed.get(lines[line]!) ?? parseEntry(lines[line]!);
+    const after = entry.parsed.declaration;
+    if (!before !== !after) return undefined;
+    if (!before || !after) {
+      edits.push({ line, entry });
+      continue;
     }
-    entries.push(cached.view);
+    const name = after.name.text;
+    if (before.name.text !== name || before.kind !== after.kind || before.name.start !== after.name.start || before.name.end !== after.name.end) return undefined;
+    if (st.byName.get(name)?.line !== line || st.cyclic.has(name)) return undefined;
+    if (!st.entriesOf.has(name)) return undefined;
+    if (after.kind === 'let') {
+      const was = new Set(cache.letReads?.get(before.value?.text ?? '') ?? []);
+      const d: Decl = { line, decl: after, key: entry.key };
+      const now = letReads(d, st.scope.compile);
+      if (now.length !== was.size || now.some((n) => !was.has(n)) || new Set(now).size !== was.size) return undefined;
+      cache.letReads?.set(after.value?.text ?? '', now);
+    }
+    edits.push({ line, entry, decl: { line, decl: after, key: entry.key } });
   }
-  for (const d of decls) if (!outcomes.has(d.decl.name.text)) {
-    entries.push({ line: d.line, kind: d.decl.kind, name: d.decl.name.text, nameRange: rangeOf(d.line, d.decl.name.start, d.decl.name.end), range: rangeOf(d.line, d.decl.span.start, d.decl.span.end), results: {}, details: [], synthesized: [] });
+
+  // Commit: swap in the new lines and declarations, then re-evaluate them and, transitively, their readers.
+  for (const e of edits) {
+    cache.parsed.delete(old[e.line]!);
+    cache.parsed.set(lines[e.line]!, e.entry);
+    if (!e.decl) continue;
+    st.byName.set(e.decl.decl.name.text, e.decl);
   }
-  entries.sort((a, b) => a.line - b.line);
-  diagnostics.sort((a, b) => a.range.start.line - b.range.start.line || a.range.start.character - b.range.start.character);
-  return { entries, diagnostics, symbols, stats, cache, models };
+  const replaced = edits.flatMap((e) => (e.decl ? [st.entriesOf.get(e.decl.decl.name.text)!] : []));
+  st.lines = lines;
+  const stats = { evaluated: 0, reused: 0 };
+  const run = makeRunner(cache, st, cache.outcomes, stats, st.marginPct);
+  const pending = new Set(edits.flatMap((e) => (e.decl ? [e.decl.decl.name.text] : [])));
+  const redone = new Set<string>();
+  /** References of each redone declaration before this call (its line's symbol references change with them). */
+  const oldReferences = new Map<string, Outcome['references']>();
+  const rank = (n: string) => KIND_RANK[st.kinds.get(n)!] * 1e9 + (st.letRank.get(n) ?? 0);
+  while (pending.size > 0) {
+    let next = '';
+    for (const n of pending) if (next === '' || rank(n) < rank(next)) next = n;
+    pending.delete(next);
+    const before = st.entriesOf.get(next)!;
+    const after = run(st.byName.get(next)!);
+    redone.add(next);
+    if (!oldReferences.has(next)) oldReferences.set(next, before.outcome.references);
+    if (after === before) continue;
+    for (const r of before.outcome.reads) st.readers.get(r)?.delete(next);
+    for (const r of after.outcome.reads) addReader(st.readers, r, next);
+    for (const reader of st.readers.get(next) ?? []) if (st.entriesOf.has(reader)) pending.add(reader);
+  }
+
+  // The edited declarations' old texts are no longer in the sheet: drop their cached outcomes.
+  for (const previous of replaced) if (!edits.some((e) => e.decl && st.entriesOf.get(e.decl.decl.name.text)!.key === previous.key) && cache.outcomes.get(previous.key) === previous) cache.outcomes.delete(previous.key);
+
+  // Patch the previous result: entries and models of what was redone, diagnostics of the lines
+  // touched, references on the edited lines.
+  const entries = st.entries.slice();
+  const models = new Map(st.models);
+  const touched = new Set(changed);
+  for (const name of redone) {
+    const d = st.byName.get(name)!;
+    const cached = st.entriesOf.get(name)!;
+    entries[st.entryIndex.get(name)!] = viewOf(d, cached);
+    const model = modelOf(cached.outcome);
+    if (model) models.set(name, model);
+    else models.delete(name);
+    touched.add(d.line);
+  }
+  const declRange = (name: string) => {
+    const d = st.byName.get(name);
+    return d ? rangeOf(d.line, d.decl.name.start, d.decl.name.end) : undefined;
+  };
+  const diagnostics = st.diagnostics.filter((d) => !touched.has(d.range.start.line));
+  const at = (line: number, d: LocalDiagnostic) => diagnostics.push(toSheetDiagnostic(line, clampToLine(d, lines[line]!.length), declRange));
+  for (const line of touched) {
+    const entry = cache.parsed.get(lines[line]!) ?? parseEntry(lines[line]!);
+    for (const e of entry.parsed.errors) at(line, e);
+    const name = entry.parsed.declaration?.name.text;
+    if (name !== undefined && st.byName.get(name)?.line === line) for (const e of st.outcomes.get(name)?.diagnostics ?? []) at(line, e);
+  }
+  diagnostics.sort(byPosition);
+
+  // References: a redone declaration may read the same text yet record other references (a let
+  // that lost its value is no longer a reference), so every redone line is patched.
+  let symbols = st.symbols;
+  const sameRefs = (a: Outcome['references'], b: Outcome['references']) => a.length === b.length && a.every((r, i) => r.name === b[i]!.name && r.start === b[i]!.start && r.end === b[i]!.end);
+  const moved = [...oldReferences].flatMap(([name, before]) => {
+    const now = st.outcomes.get(name)!.references;
+    return sameRefs(before, now) ? [] : [{ line: st.byName.get(name)!.line, before, now }];
+  }).sort((a, b) => a.line - b.line);
+  if (moved.length > 0) {
+    symbols = new Map(st.symbols);
+    const movedLines = new Set(moved.map((m) => m.line));
+    for (const name of new Set(moved.flatMap((m) => [...m.before, ...m.now].map((r) => r.name)))) {
+      const symbol = symbols.get(name);
+      if (!symbol) continue;
+      const references = symbol.references.filter((r) => !movedLines.has(r.start.line));
+      for (const m of moved) {
+        const mine = m.now.filter((r) => r.name === name).map((r) => rangeOf(m.line, r.start, r.end));
+        if (mine.length === 0) continue;
+        const at = references.findIndex((r) => r.start.line > m.line);
+        references.splice(at < 0 ? references.length : at, 0, ...mine);
+      }
+      symbols.set(name, { ...symbol, references });
+    }
+  }
+
+  stats.reused = st.outcomes.size - stats.evaluated;
+  const result: SheetResult = { entries, diagnostics, symbols, stats, cache, models };
+  Object.assign(st, { owner: result, path: 'line-edit', entries, diagnostics, symbols, models });
+  return result;
 }
 
 /**
