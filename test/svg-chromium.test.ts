@@ -94,4 +94,28 @@ describe.skipIf(!available)(available ? 'plot SVG in Chromium' : `plot SVG in Ch
     expect(themed.text).toBe('rgb(200, 201, 202)');
     expect(requests.filter((u) => !u.startsWith('about:') && !u.startsWith('data:'))).toEqual([]);
   });
+
+  it('as a file opened on a dark page (an image: no theme variables reach it) it brings its own white background; inline it takes the theme\'s', async () => {
+    const svg = svgOf('tune');
+    await page.setContent('<!doctype html><html><body style="margin:0; background: #000"></body></html>');
+    // Drawn as an image onto a canvas: the corner pixel (outside the plot area) is what the reader sees there.
+    const pixels = await page.evaluate(`new Promise((resolve, reject) => {
+      const img = new Image();
+      img.onload = () => {
+        const c = document.createElement('canvas');
+        c.width = img.naturalWidth;
+        c.height = img.naturalHeight;
+        const g = c.getContext('2d');
+        g.drawImage(img, 0, 0);
+        resolve({ corner: Array.from(g.getImageData(3, 3, 1, 1).data), width: c.width });
+      };
+      img.onerror = () => reject(new Error('the SVG did not load as an image'));
+      img.src = 'data:image/svg+xml;charset=utf-8,' + encodeURIComponent(${JSON.stringify(svg)});
+    })`) as { corner: number[]; width: number };
+    expect(pixels.width).toBeGreaterThan(100);
+    expect(pixels.corner).toEqual([255, 255, 255, 255]);
+    // Inline in a themed page (the panel), the background is the editor's.
+    await page.setContent(`<!doctype html><html><body style="margin:0; --vscode-editor-background: rgb(30, 31, 32)">${svg}</body></html>`);
+    expect(await page.evaluate(`getComputedStyle(document.querySelector('.sw-background')).fill`)).toBe('rgb(30, 31, 32)');
+  });
 });

@@ -148,6 +148,19 @@ describe('plot SVG', () => {
     }
   });
 
+  it.each(CASES)('%s %j: its first child is a background over the whole viewBox in the editor\'s background colour (white without a theme)', (name, options) => {
+    const { root } = plot(name, options);
+    const [x0, y0, w, h] = root.attributes.viewBox!.split(' ').map(Number);
+    const first = root.children[0]!;
+    expect(first.name).toBe('rect');
+    expect(first.attributes).toEqual({
+      class: 'sw-background', x: String(x0), y: String(y0), width: String(w), height: String(h),
+      style: 'fill: var(--vscode-editor-background, #ffffff)',
+    });
+    // Only one background, and everything else is drawn over it.
+    expect(byClass(root, 'sw-background')).toHaveLength(1);
+  });
+
   it('has a title element with the plot title', () => {
     const { result, root } = plot('feed');
     expect(root.children.find((c) => c.name === 'title')!.text).toBe(result.title);

@@ -76,6 +76,24 @@ describe('plots over the language server protocol (demo sheet)', () => {
     }
   });
 
+  it('every lens opens a plot, not an error: the demo\'s feed has no "at" and is plotted around the stubs on it', async () => {
+    const lenses = (await client.connection.sendRequest(CodeLensRequest.type, { textDocument: { uri: DEMO_URI } })) as CodeLens[];
+    expect(lenses.map((l) => l.command!.arguments![1])).toContain('feed');
+    expect(entry('feed').results.frequency_hz ?? null).toBeNull();
+    for (const lens of lenses) {
+      const [uri, name] = lens.command!.arguments as [string, string];
+      const r = await plot({ uri, name });
+      expect(r, name).not.toHaveProperty('error');
+    }
+    const feed = ok(await plot({ uri: DEMO_URI, name: 'feed' }));
+    const root = rootAttrs(feed.svg);
+    // Over the stubs built on it: tune and lbias at f0, trap at 2·f0.
+    for (const stub of ['tune', 'lbias', 'trap']) {
+      expect(num(stub, 'frequency_hz')).toBeGreaterThan(Number(root['data-x-min']));
+      expect(num(stub, 'frequency_hz')).toBeLessThan(Number(root['data-x-max']));
+    }
+  });
+
   it('plots a resonant stub: self-contained SVG, resonance markers at the resonances the evaluator reports', async () => {
     const r = ok(await plot({ uri: DEMO_URI, name: 'trap' }));
     expect(r).toMatchObject({ name: 'trap', entryKind: 'stub', view: 'frequency' });

@@ -74,7 +74,8 @@ ${JSON_SHAPE}
 const SWEEP_OPTIONS = `  --name NAME      the stub, line or sweep (a "sweep NAME: of …" declaration) to use
   --from F, --to F frequency range (2.4GHz, 2.4 GHz, 2.4e9; a bare number is Hz); default:
                    the sweep's range, else a span around the stub's "at" that shows the
-                   resonances on either side of it (its band included), or 0.02 … 2 × a line's "at"
+                   resonances on either side of it with room around both (its band included),
+                   or 0.02 … 2 × a line's "at" (without one: around the "at" of its stubs)
   --points N       number of points, evenly spaced, ends included, 2 … 10001 (default: the
                    sweep's, else 401)
 ${MARGIN}`;
@@ -103,7 +104,8 @@ const PLOT = `Usage: stubwright plot FILE --name NAME --svg OUT [--view frequenc
                        [--from F] [--to F] [--points N] [--length-unit mm|mil] [--margin PCT]
 
 Draws the same picture as the editor's plot panel, as a self-contained SVG file (no script,
-nothing loaded from elsewhere), written atomically to OUT.
+nothing loaded from elsewhere; its own background, white outside an editor), written
+atomically to OUT.
   stub   reactance X (and resistance R on a lossy line) and the equivalent L or C, over
          frequency; resonances marked and labelled, the band shaded, the operating point shown
   line   Z0, εeff and loss over frequency; a sweep of a line section: |S11| and |S21| in dB

@@ -12,7 +12,7 @@
 import { cabs, phaseConstant } from '../engine/index.js';
 import { formatQuantity } from '../sheet/format.js';
 import type { LineBuild } from '../sheet/eval/lineTypes.js';
-import { stubPointAt, type StubBuild } from '../sheet/eval/stubPoint.js';
+import { shownReactance, stubPointAt, type StubBuild } from '../sheet/eval/stubPoint.js';
 import { abcdToS } from './sparams.js';
 import {
   lineSectionAbcd, linearGrid, resonanceCount, stubLengthResonances, stubResonances, sweepLine, sweepStubFrequency, sweepStubLength, type StubSample,
@@ -87,12 +87,17 @@ function stubPanels(build: StubBuild, xs: number[], samples: StubSample[], poles
 const stubTitle = (name: string, b: StubBuild, unit: 'mm' | 'mil') =>
   `${name}: ${b.kind} stub on ${b.lineName}, ${formatQuantity(b.lengthM, 'length', { lengthUnit: unit })}`;
 
-const opLabel = (b: StubBuild, unit: 'mm' | 'mil') => {
+/**
+ * The operating point's label: on a resonance (|X| ≤ R, the sheet's `resonant`, or X below what the
+ * computation resolves) "resonant" with R; otherwise X and the equivalent L or C.
+ */
+export const operatingLabel = (b: StubBuild, unit: 'mm' | 'mil') => {
   const p = stubPointAt(b, b.frequencyHz);
   const where = `at ${formatQuantity(b.frequencyHz, 'frequency')}, ${formatQuantity(b.lengthM, 'length', { lengthUnit: unit })}`;
-  if (p.behaviour === 'resonant') return `resonant (R ${formatQuantity(p.resistance, 'resistance')}) ${where}`;
+  const x = shownReactance(p.reactance, b.line.model(b.frequencyHz).z0, p.resistance);
+  if (p.behaviour === 'resonant' || x === 0) return `resonant (R ${formatQuantity(p.resistance, 'resistance')}) ${where}`;
   const lc = p.inductance !== null ? ` ≈ ${formatQuantity(p.inductance, 'inductance')}` : p.capacitance !== null ? ` ≈ ${formatQuantity(p.capacitance, 'capacitance')}` : '';
-  return `X ${formatQuantity(p.reactance, 'reactance')}${lc} ${where}`;
+  return `X ${formatQuantity(x, 'reactance')}${lc} ${where}`;
 };
 
 /** Most resonances a plot marks; a wider range is refused (the picture would be a comb). */
@@ -117,7 +122,7 @@ export function stubFrequencyPlot(name: string, build: StubBuild, grid: Grid, le
     panels: stubPanels(build, xs, samples, poles, build.lengthM),
     ...(build.band ? { band: build.band } : {}),
     resonances: markers,
-    operating: { x: build.frequencyHz, label: opLabel(build, lengthUnit) },
+    operating: { x: build.frequencyHz, label: operatingLabel(build, lengthUnit) },
   };
 }
 
@@ -138,7 +143,7 @@ export function stubLengthPlot(name: string, build: StubBuild, grid: Grid, lengt
     view: 'length', xQuantity: 'length', xLabel: 'drawn length', xMin: grid.from, xMax: grid.to, lengthUnit,
     panels: stubPanels(build, xs, samples, poles, build.lengthM),
     resonances: markers,
-    operating: { x: build.lengthM, label: opLabel(build, lengthUnit) },
+    operating: { x: build.lengthM, label: operatingLabel(build, lengthUnit) },
   };
 }
 

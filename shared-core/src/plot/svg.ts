@@ -4,7 +4,10 @@
  *
  * - Colours only through CSS custom properties with fallbacks (`var(--vscode-charts-blue, #3b6fd6)`),
  *   set in `style` attributes, so a webview follows the editor's theme and a file still renders.
- * - No script, no external reference, no foreignObject; the background is left transparent.
+ * - No script, no external reference, no foreignObject.
+ * - The first child is a background rectangle over the whole viewBox in the editor's background
+ *   colour (`var(--vscode-editor-background, #ffffff)`): the file reads on any page (dark ones too),
+ *   and in the panel it is the theme's own background.
  * - Stacked panels share one linear x axis; every trace is clipped to its panel's y range (a
  *   segment leaving the range ends at the edge) and is broken where the model says (poles).
  * - Classes and data attributes are the interface tests and the panel rely on (see the contract):
@@ -69,6 +72,7 @@ const FOREGROUND = 'var(--vscode-editor-foreground, #1f1f1f)';
 const MUTED = 'var(--vscode-descriptionForeground, #6a6a6a)';
 const GRID = 'var(--vscode-editorWidget-border, #c8c8c8)';
 const FONT = 'var(--vscode-font-family, sans-serif)';
+const BACKGROUND = 'var(--vscode-editor-background, #ffffff)';
 
 export const WIDTH = 760;
 const LEFT = 74;
@@ -181,6 +185,7 @@ export function renderSvg(m: PlotModel): string {
     `<svg xmlns="http://www.w3.org/2000/svg" class="sw-plot" viewBox="0 0 ${WIDTH} ${height}" width="${WIDTH}" height="${height}" role="img"` +
       ` data-view="${m.view}" data-x-min="${d(m.xMin)}" data-x-max="${d(m.xMax)}" data-plot-left="${LEFT}" data-plot-width="${plotW}"` +
       ` font-family="sans-serif" style="font-family: ${FONT}; color: ${FOREGROUND}">`,
+    `<rect class="sw-background" x="0" y="0" width="${WIDTH}" height="${height}" style="fill: ${BACKGROUND}"/>`,
     `<title>${escapeXml(m.title)}</title>`,
     `<text class="sw-title" x="${LEFT}" y="20" font-size="14" font-weight="600" style="fill: ${FOREGROUND}">${escapeXml(m.title)}</text>`,
   );

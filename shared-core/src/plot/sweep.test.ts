@@ -1,6 +1,9 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { cabs, cmul, csub, electricalLengthAt, phaseConstant, resonanceFrequency } from '../engine/index.js';
+import { readdirSync, readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { cabs, cmul, csub, electricalLengthAt, nearestResonances, phaseConstant, resonanceFrequency } from '../engine/index.js';
 import { evaluateSheet } from '../sheet/evaluate.js';
 import type { StubBuild } from '../sheet/eval/stubPoint.js';
 import { example } from '../sheet/testUtil.js';
@@ -131,6 +134,74 @@ describe('stub sweeps use the sheet\'s own functions', () => {
         for (const s of sweepStubFrequency(m.stub, linearGrid(span.from, span.to, 101))) expect(Number.isFinite(s.point.resistance)).toBe(true);
       }
     }
+  });
+});
+
+/** Every example sheet of the repository (examples/*.rfsheet), by file name. */
+const EXAMPLES_DIR = fileURLToPath(new URL('../../../examples/', import.meta.url));
+const EXAMPLE_FILES = readdirSync(EXAMPLES_DIR).filter((f) => f.endsWith('.rfsheet')).sort();
+
+/** Share of the span between x and the nearer end ([from, to]); negative outside. */
+const room = (span: { from: number; to: number }, x: number) => Math.min(x - span.from, span.to - x) / (span.to - span.from);
+
+/** Checks that `at`, and the resonance nearest it where that lies within 3.5·at, sit inside the span with ≥ 5 % of it on each side. */
+function expectRoom(build: StubBuild, span: { from: number; to: number }, what: string) {
+  const f = build.frequencyHz;
+  expect(room(span, f), `${what}: room around "at" ${f} Hz in ${span.from} … ${span.to}`).toBeGreaterThanOrEqual(0.05);
+  const nearest = nearestResonances(build.kind, build.line.model, resonanceLength(build), f).nearest.frequencyHz;
+  if (nearest <= 3.5 * f) expect(room(span, nearest), `${what}: room around the nearest resonance ${nearest} Hz in ${span.from} … ${span.to}`).toBeGreaterThanOrEqual(0.05);
+}
+
+describe('default frequency spans leave room on both sides of "at" and of its nearest resonance', () => {
+  it('has example sheets to check', () => {
+    expect(EXAMPLE_FILES.length).toBeGreaterThanOrEqual(4);
+  });
+
+  it.each(EXAMPLE_FILES)('every stub of examples/%s', (file) => {
+    const r = evaluateSheet(readFileSync(join(EXAMPLES_DIR, file), 'utf8'));
+    const built = [...(r.models?.values() ?? [])].flatMap((m) => (m.kind === 'stub' ? [m.stub] : []));
+    const declared = r.entries.filter((e) => e.kind === 'stub');
+    expect(built.length, file).toBe(declared.length);
+    expect(built.length, file).toBeGreaterThan(0);
+    for (const [i, build] of built.entries()) expectRoom(build, defaultStubSpan(build, 10), `${file} ${declared[i]!.name}`);
+  });
+
+  it('a stub exactly on its resonance (the demo\'s trap, λ/4 open at 2·f0) is drawn from near DC to past its next resonance', () => {
+    const r = evaluateSheet(readFileSync(join(EXAMPLES_DIR, 'sensor-node.rfsheet'), 'utf8'));
+    const m = r.models!.get('trap');
+    if (m?.kind !== 'stub') throw new Error('no trap');
+    const f = m.stub.frequencyHz;
+    const span = defaultStubSpan(m.stub, 10);
+    const next = stubResonances(m.stub, 1.01 * f, 3.5 * f)[0]!.frequencyHz; // the λ/2 parallel resonance
+    expect(span.from).toBeLessThanOrEqual(0.05 * f);
+    expect(span.to).toBeGreaterThan(next);
+    expect(room(span, f)).toBeGreaterThan(0.3);
+  });
+
+  it('any stub length, on or off a resonance, short or many wavelengths long, with or without a band (property)', () => {
+    const withBand = (build: StubBuild, band: boolean): StubBuild => ({ ...build, band: band ? [0.97 * build.frequencyHz, 1.03 * build.frequencyHz] : null });
+    fc.assert(fc.property(
+      fc.constantFrom(...stubs.map(([, b]) => b)),
+      fc.integer({ min: 0, max: 60 }),
+      fc.oneof(fc.constant(0), fc.constantFrom(1e-9, -1e-9, 1e-4, -1e-4), fc.double({ min: -0.49, max: 0.49, noNaN: true })),
+      fc.boolean(),
+      (build, quarterWaves, detune, band) => {
+        // Drawn length for quarterWaves + detune quarter waves at `at` (effective length minus what the end adds).
+        const f = build.frequencyHz;
+        const quarter = Math.PI / 2 / phaseConstant(build.line.model(f).epsEff, f);
+        const extra = resonanceLength(build) - build.lengthM;
+        const lengthM = (quarterWaves + detune) * quarter - extra;
+        fc.pre(lengthM > 1e-4);
+        const b = withBand({ ...build, lengthM }, band);
+        const span = defaultStubSpan(b, 10);
+        expect(span.from).toBeGreaterThan(0);
+        expectRoom(b, span, `${quarterWaves}${detune >= 0 ? '+' : ''}${detune} quarter waves`);
+        if (b.band) {
+          expect(span.from).toBeLessThanOrEqual(b.band[0] * 0.9);
+          expect(span.to).toBeGreaterThanOrEqual(b.band[1] * 1.1);
+        }
+      },
+    ), { numRuns: 150 });
   });
 });
 

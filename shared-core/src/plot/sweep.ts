@@ -12,7 +12,7 @@
  * Table 4.1, transmission line; from memory).
  */
 import {
-  type Complex, type LineModel, type Resonance, cdiv, cmul, complex, electricalLengthAt, nearestResonances, phaseConstant, propagationConstant, resonanceType, resonancesInRange, rlgcLineAt, rlgcOf,
+  type Complex, type LineModel, type Resonance, cdiv, cmul, complex, electricalLengthAt, nearestResonances, phaseConstant, propagationConstant, resonance, resonanceType, resonancesInRange, rlgcLineAt, rlgcOf,
 } from '../engine/index.js';
 import type { LineBuild } from '../sheet/eval/lineTypes.js';
 import { endExtraLength, stubPointAt, type StubBuild, type StubPoint } from '../sheet/eval/stubPoint.js';
@@ -38,21 +38,45 @@ export interface Span {
   to: number;
 }
 
+/** Least share of a default span left on each side of `at` and of the resonance nearest it. */
+export const SPAN_ROOM = 0.08;
+
 /**
- * Default frequency span of a stub: from below the resonance under `at` (or near DC when there is
- * none) to just past the resonance above (at least 2·at, at most about 4·at), widened to hold the
- * band plus the margin. Resonances from the engine, at the effective length the sheet uses.
+ * Default frequency span of a stub. Its anchors are `at` and the resonance nearest `at` when that
+ * lies within 3.5·at; the span runs from below the resonance under the lower anchor (half the gap
+ * again below it; near DC when there is none) to past the resonance above the upper anchor (15 % of
+ * the gap beyond it, at least 2·at; when that resonance lies above 3.5·at, to 15 % of the anchors'
+ * distance past the upper anchor, at least 2·at), is widened to hold the band plus the margin, and
+ * finally widened so that at least SPAN_ROOM of it lies on each side of both anchors: a stub sitting
+ * on a resonance (a trap, a choke) is never drawn on the edge. Resonances come from the engine, at
+ * the effective length the sheet uses.
  */
 export function defaultStubSpan(build: StubBuild, marginPct = 10): Span {
   const f = build.frequencyHz;
-  const near = nearestResonances(build.kind, build.line.model, resonanceLength(build), f);
-  const above = near.above.frequencyHz;
-  const below = near.below?.frequencyHz;
-  let to = above <= 3.5 * f ? Math.max(2 * f, above + 0.15 * (above - f)) : 2 * f;
-  let from = below !== undefined ? Math.max(0.02 * f, below - 0.5 * (f - below)) : 0.02 * f;
+  const length = resonanceLength(build);
+  const nearest = nearestResonances(build.kind, build.line.model, length, f).nearest;
+  const anchored = nearest.frequencyHz <= 3.5 * f;
+  const lo = anchored ? Math.min(f, nearest.frequencyHz) : f;
+  const hi = anchored ? Math.max(f, nearest.frequencyHz) : f;
+  // Neighbours by quarter-wave count: the resonance under the lower anchor and the one over the upper.
+  const n = nearest.quarterWaves;
+  const below = anchored && n > 1 ? resonance(build.kind, build.line.model, length, n - 1).frequencyHz : undefined;
+  const above = anchored ? resonance(build.kind, build.line.model, length, n + 1).frequencyHz : nearest.frequencyHz;
+  let to = above <= 3.5 * f ? Math.max(2 * f, above + 0.15 * (above - hi)) : Math.max(2 * f, hi + 0.15 * (hi - lo));
+  let from = below !== undefined ? Math.max(0.02 * f, below - 0.5 * (lo - below)) : 0.02 * f;
   if (build.band) {
     from = Math.min(from, build.band[0] * (1 - marginPct / 100));
     to = Math.max(to, build.band[1] * (1 + marginPct / 100));
+  }
+  // Room on both sides of the anchors (a long stub's span is otherwise tight below `at`).
+  const floor = Math.min(from, 0.02 * f);
+  for (let i = 0; i < 8; i++) {
+    const span = to - from;
+    const needFrom = Math.max(floor, lo - SPAN_ROOM * span);
+    const needTo = hi + SPAN_ROOM * span;
+    if (needFrom >= from && needTo <= to) break;
+    from = Math.min(from, needFrom);
+    to = Math.max(to, needTo);
   }
   return { from: Math.max(from, 1e-6 * to), to };
 }

@@ -2,6 +2,7 @@
  * Hovers: on a name, the value it stands for; anywhere else on a declaration, a Markdown summary
  * of every result for that line (electrical length, Zin, L/C, resonances and margin, band, model).
  */
+import { shownReactance } from '../sheet/eval/stubPoint.js';
 import { formatQuantity } from '../sheet/format.js';
 import type { Position, SheetEntry } from '../sheet/types.js';
 import { equivalent, num, shower } from './display.js';
@@ -72,7 +73,10 @@ function summary(entry: SheetEntry, doc: EvaluatedDocument): string {
       );
     }
   } else if (entry.kind === 'stub' && num(r, 'length_m') !== null) {
-    const x = num(r, 'reactance_ohm');
+    const model = doc.result.models?.get(entry.name);
+    const z0 = model?.kind === 'stub' ? model.stub.line.model(model.stub.frequencyHz).z0 : 0;
+    const computed = num(r, 'reactance_ohm');
+    const x = computed === null ? null : shownReactance(computed, z0, num(r, 'resistance_ohm') ?? 0);
     const reactance = x === null ? '∞ (open circuit)' : `${x >= 0 ? '+' : '−'}j${formatQuantity(Math.abs(x), 'impedance')}`;
     const margin = num(r, 'resonance_margin_pct')!;
     rows.push(
@@ -83,7 +87,7 @@ function summary(entry: SheetEntry, doc: EvaluatedDocument): string {
       row('resonance below / above', `${show('resonance_below_hz', 'frequency')} / ${show('resonance_above_hz', 'frequency')}`),
       row('margin to nearest', `${margin.toFixed(1)} %${spread('resonance_margin_pct', 'percent')} (warning below ${doc.settings.marginPct} %)`),
     );
-    if (num(r, 'q') !== null) rows.push(row('Q as an L or C (X / R)', num(r, 'q')!.toPrecision(3)));
+    if (num(r, 'q') !== null) rows.push(row('Q as an L or C (X / R)', x === 0 ? '0' : num(r, 'q')!.toPrecision(3)));
     if (num(r, 'bandwidth_hz') !== null) {
       rows.push(row('resonator Q · 3 dB bandwidth', `${num(r, 'resonator_q')!.toPrecision(3)} · ${show('bandwidth_hz', 'frequency')}`));
     }

@@ -2,7 +2,9 @@
 import { describe, expect, it } from 'vitest';
 import { parseCsv } from '../plot/csv.js';
 import { parseTouchstone } from '../plot/touchstone.js';
-import { open } from './testUtil.js';
+import { analyseEndedStub } from '../engine/index.js';
+import { stubPointAt, type StubBuild } from '../sheet/eval/stubPoint.js';
+import { example, lineOf, open } from './testUtil.js';
 
 // Invented example: a 2.45 GHz front end.
 const TEXT = [
@@ -19,10 +21,9 @@ const TEXT = [
 const { service, doc } = open(TEXT);
 
 describe('getPlotTargets', () => {
-  it('lists every evaluated stub, line and sweep with its declaration range; sweeps say what they sweep', () => {
+  it('lists every evaluated stub, line and sweep with its declaration range; sweeps say what they sweep; a line with neither "at" nor stubs is left out', () => {
     expect(service.getPlotTargets(doc)).toEqual([
       { name: 'feed', kind: 'line', range: { start: { line: 2, character: 0 }, end: { line: 2, character: 48 } } },
-      { name: 'bare', kind: 'line', range: { start: { line: 3, character: 0 }, end: { line: 3, character: 42 } } },
       { name: 'tune', kind: 'stub', range: expect.objectContaining({ start: { line: 4, character: 0 } }) },
       { name: 'wide', kind: 'stub', sweepOf: 'tune', range: expect.objectContaining({ start: { line: 6, character: 0 } }) },
       { name: 'sec', kind: 'line', sweepOf: 'feed', range: expect.objectContaining({ start: { line: 7, character: 0 } }) },
@@ -65,7 +66,7 @@ describe('getPlot', () => {
     ['f0', {}, /f0 is a let: plots and exports are of stubs, lines and sweeps/],
     ['board', {}, /board is a substrate/],
     ['broken', {}, /broken \(line 6\) could not be evaluated/],
-    ['bare', {}, /bare has no "at" to centre a span on/],
+    ['bare', {}, /^bare has no "at", and no stub on it has one, to centre a span on: give the range \(from and to\)$/],
     ['feed', { view: 'length' }, /the length view is for stubs: feed is a line/],
     ['sec', { view: 'length' }, /the length view is for stubs/],
     ['tune', { fromHz: 3e9, toHz: 2e9 }, /the range must go from low to high: 3 GHz … 2 GHz/],
@@ -171,5 +172,135 @@ describe('sweeps in the editor', () => {
     expect(at('sw').map((c) => c.label)).toEqual(expect.arrayContaining(['sweep', 'sweep …']));
     expect(at(`${TEXT}\nsweep z: of tune, `).map((c) => c.label)).toEqual(['over', 'points', 'length', 'ref']);
     expect(at(`${TEXT}\nsweep z: of `).map((c) => c.label)).toEqual(['tune', 'broken', 'feed', 'bare']);
+  });
+});
+
+describe('a line without "at": its span comes from the stubs built on it', () => {
+  // Invented example: a feed line declared without "at", two stubs on it at different frequencies.
+  const sheet = [
+    'substrate board: dk 2.55, df 0.0022, height 0.8 mm, copper 1 oz',
+    'line plain: microstrip on board, z0 50 ohm',
+    'line lonely: microstrip on board, width 1 mm',
+    'stub low: open on plain, capacitance 0.9 pF, at 2.45 GHz',
+    'stub high: open on plain, angle 90 deg, at 5.8 GHz, resonant',
+  ].join('\n');
+  const it2 = open(sheet);
+
+  it('is a plot target; a line with neither "at" nor stubs is not', () => {
+    expect(it2.service.getPlotTargets(it2.doc).map((t) => `${t.kind} ${t.name}`)).toEqual(['line plain', 'stub low', 'stub high']);
+  });
+
+  it('plots Z0, εeff and loss over 0.02 × the lowest … 2 × the highest stub "at"', () => {
+    const p = it2.service.getPlot(it2.doc, 'plain');
+    if ('error' in p) throw new Error(p.error);
+    expect(p).toMatchObject({ entryKind: 'line', title: 'plain: line over frequency' });
+    expect(p.svg).toContain(`data-x-min="${0.02 * 2.45e9}" data-x-max="${2 * 5.8e9}"`);
+    expect(p.svg).toMatch(/data-quantity="z0"[\s\S]*data-quantity="eps-eff"[\s\S]*data-quantity="loss"/);
+    expect(p.markers).toEqual([]);
+    // A range asked for still wins, one end at a time.
+    const asked = it2.service.getPlot(it2.doc, 'plain', { toHz: 3e9 });
+    expect('svg' in asked && asked.svg).toContain(`data-x-min="${0.02 * 2.45e9}" data-x-max="3000000000"`);
+  });
+
+  it('exports its CSV over the same span; the lonely line still needs a range', () => {
+    const csv = it2.service.getExport(it2.doc, 'plain', 'csv', { points: 3 });
+    if ('error' in csv) throw new Error(csv.error);
+    expect(parseCsv(csv.text).slice(1).map((r) => Number(r[0]))).toEqual([0.02 * 2.45e9, (0.02 * 2.45e9 + 2 * 5.8e9) / 2, 2 * 5.8e9]);
+    expect(it2.service.getPlot(it2.doc, 'lonely')).toEqual({ error: expect.stringMatching(/^lonely has no "at", and no stub on it has one/) });
+    expect(it2.service.getPlot(it2.doc, 'lonely', { fromHz: 1e9, toHz: 2e9, points: 3 })).toMatchObject({ entryKind: 'line' });
+  });
+
+  it('the demo\'s feed (no "at"; trap, tune and lbias on it) plots, and every plot target of every example plots without an error', () => {
+    const demo = open(example('sensor-node'));
+    const feed = demo.service.getPlot(demo.doc, 'feed');
+    if ('error' in feed) throw new Error(feed.error);
+    expect(feed.svg).toContain(`data-x-min="${0.02 * 2.45e9}" data-x-max="${2 * 4.9e9}"`);
+    for (const file of ['sensor-node', 'warnings-tour', 'power-check', 'trap-sweep']) {
+      const ex = open(example(file));
+      for (const t of ex.service.getPlotTargets(ex.doc)) expect(ex.service.getPlot(ex.doc, t.name), `${file} ${t.name}`).not.toHaveProperty('error');
+    }
+  });
+});
+
+describe('the operating-point label', () => {
+  /** The demo with one stub's angle replaced by a drawn length (m). */
+  const demoWith = (stubName: string, lengthM: number) => {
+    const text = example('sensor-node');
+    const line = text.split('\n').find((l) => l.startsWith(`stub ${stubName}:`))!;
+    expect(line).toContain('angle 90°');
+    return open(text.replace(line, line.replace('angle 90°', `length ${(lengthM * 1e3).toPrecision(17)} mm`)));
+  };
+  const buildOf = (d: ReturnType<typeof open>, name: string): StubBuild => {
+    const m = d.doc.result.models!.get(name);
+    if (m?.kind !== 'stub') throw new Error(`${name} is not an evaluated stub`);
+    return m.stub;
+  };
+  /** R of the real-Z0 analysis and R of the R′L′G′C′ line (the one reported) at `at`, for a drawn length. */
+  const twoRs = (b: StubBuild, lengthM: number) => {
+    const a = analyseEndedStub(b.end, b.line.model, lengthM, b.frequencyHz);
+    return { x: a.reactance, analysisR: a.resistance, reportedR: stubPointAt(b, b.frequencyHz, lengthM, a).resistance };
+  };
+  /** A drawn length, between `onResonance` and `detuned`, where |X| lies halfway between the two Rs (bisection). */
+  const straddling = (b: StubBuild, onResonance: number, detuned: number) => {
+    const g = (l: number) => {
+      const t = twoRs(b, l);
+      return Math.abs(t.x) - (t.analysisR + t.reportedR) / 2;
+    };
+    let [lo, hi] = [onResonance, detuned];
+    expect(g(lo)).toBeLessThan(0);
+    expect(g(hi)).toBeGreaterThan(0);
+    for (let i = 0; i < 200; i++) {
+      const mid = (lo + hi) / 2;
+      if (g(mid) < 0) lo = mid;
+      else hi = mid;
+    }
+    return (lo + hi) / 2;
+  };
+
+  it.each([
+    ['trap', 'series resonance, open stub on a lossy microstrip'],
+    ['esd', 'parallel resonance, short stub through a via on a lossy grounded CPW'],
+  ])('%s (%s): says "resonant" with R exactly when |X| ≤ the R it reports, as the sheet\'s behaviour does', (name) => {
+    const onResonance = buildOf(open(example('sensor-node')), name).lengthM; // angle 90° at "at"
+    const length = straddling(buildOf(open(example('sensor-node')), name), onResonance, 0.98 * onResonance);
+    const d = demoWith(name, length);
+    const b = buildOf(d, name);
+    // The case this checks: the two Rs disagree about |X| (one above it, one below).
+    const t = twoRs(b, b.lengthM);
+    expect(Math.sign(Math.abs(t.x) - t.analysisR)).toBe(-Math.sign(Math.abs(t.x) - t.reportedR));
+    const r = d.doc.result.entries.find((e) => e.name === name)!.results;
+    expect(r.resistance_ohm).toBe(t.reportedR);
+    const resonant = Math.abs(t.x) <= t.reportedR;
+    expect(r.behaviour).toBe(resonant ? 'resonant' : t.x > 0 ? 'inductive' : 'capacitive');
+    expect(r.q !== null && (r.q as number) <= 1).toBe(resonant);
+    expect(r.inductance_h === null && r.capacitance_f === null).toBe(resonant);
+    const p = d.service.getPlot(d.doc, name);
+    if ('error' in p) throw new Error(p.error);
+    const label = p.markers.find((m) => m.kind === 'operating')!.label;
+    expect(label).toMatch(resonant ? /^resonant \(R \d+(\.\d+)? [mk]?Ω\) at / : /^X [+−]\d+(\.\d+)? [mk]?Ω ≈ \d+(\.\d+)? [fpn][FH] at /);
+  });
+
+  it('every stub of every example: "resonant (R …)" where the sheet says resonant, else X with its L or C; never rounding noise', () => {
+    for (const file of ['sensor-node', 'warnings-tour', 'power-check', 'trap-sweep']) {
+      const ex = open(example(file));
+      for (const e of ex.doc.result.entries.filter((x) => x.kind === 'stub')) {
+        const p = ex.service.getPlot(ex.doc, e.name);
+        if ('error' in p) throw new Error(p.error);
+        const label = p.markers.find((m) => m.kind === 'operating')!.label;
+        expect(label, `${file} ${e.name}`).toMatch(e.results.behaviour === 'resonant' ? /^resonant \(R / : /^X [+−]/);
+        expect(label, `${file} ${e.name}`).not.toMatch(/\de[-+]?\d/);
+      }
+    }
+  });
+
+  it('the hover shows the trap\'s X at resonance as 0 (below what the computation resolves) and its Q as an L or C as 0', () => {
+    const text = example('sensor-node');
+    const d = open(text);
+    const r = d.doc.result.entries.find((e) => e.name === 'trap')!.results;
+    expect(Math.abs(r.reactance_ohm as number)).toBeLessThan(1e-12); // the computed X: rounding noise, kept in the results
+    const hover = d.service.getHover(d.doc, { line: lineOf(text, 'stub trap:'), character: 6 })!.contents;
+    expect(hover).toMatch(/\| Zin \| 0\.173 Ω \+j0 Ω \|/);
+    expect(hover).toMatch(/\| Q as an L or C \(X \/ R\) \| 0 \|/);
+    for (const row of hover.split('\n').filter((l) => /^\| (Zin|Q as an L or C)/.test(l))) expect(row).not.toMatch(/\de-\d/);
   });
 });

@@ -29,6 +29,24 @@ function resolve(doc: EvaluatedDocument, name: string): EntryModel | Failure {
 
 const isFailure = (x: unknown): x is Failure => typeof x === 'object' && x !== null && 'error' in x;
 
+/** The `at` of every evaluated stub built on line `name`, Hz. */
+function stubFrequenciesOn(doc: EvaluatedDocument, name: string): number[] {
+  const out: number[] = [];
+  for (const m of doc.result.models?.values() ?? []) if (m.kind === 'stub' && m.stub.lineName === name) out.push(m.stub.frequencyHz);
+  return out;
+}
+
+/**
+ * Default span of a line: around its own `at` (0.02·at … 2·at), or, for a line without one, around
+ * the `at` of the stubs built on it (0.02 × the lowest … 2 × the highest); null when it has neither.
+ */
+function lineSpan(doc: EvaluatedDocument, name: string, atHz: number | null): Span | null {
+  if (atHz !== null) return defaultLineSpan(atHz);
+  const fs = stubFrequenciesOn(doc, name);
+  if (fs.length === 0) return null;
+  return { from: defaultLineSpan(Math.min(...fs)).from, to: defaultLineSpan(Math.max(...fs)).to };
+}
+
 /** Checks a requested range and point count against defaults; a one-sided range keeps the other default end. */
 function gridOf(what: string, unit: 'frequency' | 'length', from: number | undefined, to: number | undefined, points: number | undefined, fallback: Span | null, defaultPoints = DEFAULT_POINTS): Grid | Failure {
   for (const [key, v] of [['from', from], ['to', to]] as const) {
@@ -39,7 +57,7 @@ function gridOf(what: string, unit: 'frequency' | 'length', from: number | undef
   }
   const lo = from ?? fallback?.from;
   const hi = to ?? fallback?.to;
-  if (lo === undefined || hi === undefined) return { error: `${what} has no "at" to centre a span on: give the range (from and to)` };
+  if (lo === undefined || hi === undefined) return { error: `${what} has no "at", and no stub on it has one, to centre a span on: give the range (from and to)` };
   if (!(hi > lo)) {
     const show = (v: number) => formatQuantity(v, unit);
     return { error: `the range must go from low to high: ${show(lo)} … ${show(hi)}` };
@@ -80,7 +98,7 @@ export function getPlot(doc: EvaluatedDocument, name: string, options: PlotOptio
     if (model.kind === 'stub') return stubPlot(doc, name, model.stub, options, defaultStubSpan(model.stub, doc.settings.marginPct), DEFAULT_POINTS);
     if (model.kind === 'line') {
       if (lengthView) return { error: `the length view is for stubs: ${name} is a line` };
-      const grid = gridOf(name, 'frequency', options.fromHz, options.toHz, options.points, model.frequencyHz !== null ? defaultLineSpan(model.frequencyHz) : null);
+      const grid = gridOf(name, 'frequency', options.fromHz, options.toHz, options.points, lineSpan(doc, name, model.frequencyHz));
       return isFailure(grid) ? grid : result(name, 'line', linePlot(name, model.line, model.frequencyHz, grid, unit));
     }
     const sweep = model.sweep;
@@ -95,13 +113,19 @@ export function getPlot(doc: EvaluatedDocument, name: string, options: PlotOptio
   }
 }
 
-/** Every evaluated stub, line and sweep, for code lenses. */
+/**
+ * Every evaluated stub, line and sweep that plots without being given a range, for code lenses:
+ * a line without `at` and without stubs on it is left out (its plot would only be an error).
+ */
 export function getPlotTargets(doc: EvaluatedDocument): PlotTarget[] {
   const models = doc.result.models;
   if (!models) return [];
+  const stubLines = new Set<string>();
+  for (const m of models.values()) if (m.kind === 'stub') stubLines.add(m.stub.lineName);
   return doc.result.entries.flatMap((e): PlotTarget[] => {
     const m = models.get(e.name);
     if (!m) return [];
+    if (m.kind === 'line' && m.frequencyHz === null && !stubLines.has(e.name)) return [];
     if (m.kind === 'sweep') return [{ name: e.name, kind: m.sweep.targetKind, range: e.range, sweepOf: m.sweep.target }];
     return [{ name: e.name, kind: m.kind, range: e.range }];
   });
@@ -124,7 +148,7 @@ export function getExport(doc: EvaluatedDocument, name: string, format: 'touchst
     const sweep = model.kind === 'sweep' ? model.sweep : undefined;
     const reference = options.referenceOhm ?? sweep?.referenceOhm ?? DEFAULT_REFERENCE_OHM;
     const span = sweep ? { from: sweep.fromHz, to: sweep.toHz } : stub ? defaultStubSpan(stub, doc.settings.marginPct)
-      : model.kind === 'line' && model.frequencyHz !== null ? defaultLineSpan(model.frequencyHz) : null;
+      : model.kind === 'line' ? lineSpan(doc, name, model.frequencyHz) : null;
     const grid = gridOf(name, 'frequency', options.fromHz, options.toHz, options.points, span, sweep?.points);
     if (isFailure(grid)) return grid;
     const xs = linearGrid(grid.from, grid.to, grid.points);

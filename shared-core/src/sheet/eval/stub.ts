@@ -15,7 +15,7 @@ import { readItems, si, tol, type ItemValues } from './items.js';
 import type { Outcome } from './outcome.js';
 import { powerStress } from './stubPower.js';
 import { resolveEnd } from './stubEnds.js';
-import { stubPointAt, type StubBuild, type StubPoint } from './stubPoint.js';
+import { shownReactance, stubPointAt, type StubBuild, type StubPoint } from './stubPoint.js';
 import type { LineBuild } from './lineTypes.js';
 import { ValueReader, type SheetScope } from './values.js';
 
@@ -85,17 +85,17 @@ export function evalStub(decl: ParsedDeclaration, scope: SheetScope, resolved: R
   const finite = (x: number) => (Number.isFinite(x) ? x : null);
   const results: Outcome['results'] = {
     length_m: lengthM, frequency_hz: f, electrical_deg: a.electricalDeg, wavelength_fraction: a.wavelengthFraction,
-    reactance_ohm: finite(point.reactance), resistance_ohm: finite(point.resistance), inductance_h: a.inductance, capacitance_f: a.capacitance,
-    behaviour: a.behaviour, resonance_below_hz: near.below?.frequencyHz ?? null, resonance_above_hz: near.above.frequencyHz,
+    reactance_ohm: finite(point.reactance), resistance_ohm: finite(point.resistance), inductance_h: point.inductance, capacitance_f: point.capacitance,
+    behaviour: point.behaviour, resonance_below_hz: near.below?.frequencyHz ?? null, resonance_above_hz: near.above.frequencyHz,
     resonance_margin_pct: near.marginPct, resonance_nearest_hz: near.nearest.frequencyHz, resonant_intended: values.has('resonant'),
     effective_length_m: effectiveM, guided_wavelength_m: a.guidedWavelengthM, end_extension_m: ended.endExtensionM, via_inductance_h: ended.viaInductanceH,
   };
-  const lc = a.inductance !== null ? `≈ ${formatQuantity(a.inductance, 'inductance')}` : a.capacitance !== null ? `≈ ${formatQuantity(a.capacitance, 'capacitance')}` : 'neither an L nor a C here';
-  const x = Math.abs(a.reactance) < 1e-9 * Math.max(1, Math.abs(a.resistance)) ? 0 : a.reactance;
+  const lc = point.inductance !== null ? `≈ ${formatQuantity(point.inductance, 'inductance')}` : point.capacitance !== null ? `≈ ${formatQuantity(point.capacitance, 'capacitance')}` : 'neither an L nor a C here';
+  const x = shownReactance(point.reactance, a.line.z0, point.resistance);
   const details = [
     `length ${formatQuantity(lengthM, 'length')}${target ? ' (synthesized)' : ''}; effective θ ${a.electricalDeg.toFixed(1)}° = ${a.wavelengthFraction.toFixed(4)} λg at ${formatQuantity(f, 'frequency')}`,
     ...ended.details,
-    `Zin ${formatQuantity(a.resistance, 'resistance')} ${x >= 0 ? '+' : '−'} j${formatQuantity(Math.abs(x), 'impedance')}: ${a.behaviour}, ${lc}`,
+    `Zin ${formatQuantity(point.resistance, 'resistance')} ${x >= 0 ? '+' : '−'} j${formatQuantity(Math.abs(x), 'impedance')}: ${point.behaviour}, ${lc}`,
     `nearest resonances: below ${near.below ? describe(near.below) : 'none'}; above ${describe(near.above)}; margin ${near.marginPct.toFixed(1)} %`,
   ];
 
@@ -126,7 +126,7 @@ export function evalStub(decl: ParsedDeclaration, scope: SheetScope, resolved: R
   if (!resonant && worst.marginPct < marginPct) {
     diagnostics.push({
       start: valueSpan.start, end: valueSpan.end, severity: 'warning', code: 'near-resonance', related,
-      message: `${decl.name.text} is ${worst.marginPct.toFixed(1)} % from its ${describe(worst.nearest)}${cornerNote}, inside the ${marginPct} % margin: it no longer acts as a clean ${a.behaviour === 'capacitive' ? 'C' : 'L'}. Shorten or lengthen it, or mark it "resonant" if intended`,
+      message: `${decl.name.text} is ${worst.marginPct.toFixed(1)} % from its ${describe(worst.nearest)}${cornerNote}, inside the ${marginPct} % margin: it no longer acts as a clean ${point.behaviour === 'capacitive' ? 'C' : 'L'}. Shorten or lengthen it, or mark it "resonant" if intended`,
       ...(target ? {} : withLength(drawn(escapeLength(kind, models, effectiveM, lengthTol, f, marginPct)))),
     });
   }

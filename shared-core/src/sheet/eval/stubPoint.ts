@@ -3,14 +3,16 @@
  * impedance at any frequency or drawn length. The sheet's own figures at `at` and every sweep, plot
  * and export point come from `stubPointAt`, so a sweep point at `at` is the sheet's result exactly.
  *
- * - X, the equivalent L or C and the behaviour: the engine's ended-stub analysis (analyseEndedStub:
- *   open end with its extension, short ideal or through a via).
+ * - X: the engine's ended-stub analysis (analyseEndedStub: open end with its extension, short ideal
+ *   or through a via).
  * - R: on a line with a loss split, Re Zin of the exact R′L′G′C′ line (complex Z0, lossyStubImpedance)
  *   over the effective length (drawn + end extension, or + the via's equivalent length at f);
  *   otherwise Re Zin of the same ended-stub analysis.
+ * - The equivalent L or C and the behaviour: read from that X and that R (|X| ≤ R is `resonant`),
+ *   so what a stub is said to act as always agrees with the R reported beside it.
  */
 import {
-  analyseEndedStub, lossyStubImpedance, viaEquivalentLength,
+  analyseEndedStub, lossyStubImpedance, reactiveEquivalent, viaEquivalentLength,
   type Behaviour, type Complex, type EndedStubAnalysis, type LineAtFrequency, type StubEnd, type StubKind,
 } from '../../engine/index.js';
 import type { LineBuild } from './lineTypes.js';
@@ -71,14 +73,28 @@ export function stubPointAt(build: Pick<StubBuild, 'kind' | 'end' | 'line' | 'le
       lossyResistance = true;
     }
   }
+  // The real-Z0 analysis read X against its own R; with the R′L′G′C′ R, read it again against that one.
+  const element = lossyResistance ? reactiveEquivalent({ re: resistance, im: a.reactance }, frequencyHz) : a;
   return {
     zin: { re: resistance, im: a.reactance },
     reactance: a.reactance,
     resistance,
-    inductance: a.inductance,
-    capacitance: a.capacitance,
-    behaviour: a.behaviour,
+    inductance: element.inductance,
+    capacitance: element.capacitance,
+    behaviour: element.behaviour,
     effectiveLengthM,
     lossyResistance,
   };
+}
+
+/** Relative resolution of a computed reactance (see `shownReactance`). */
+export const REACTANCE_RESOLUTION = 1e-9;
+
+/**
+ * A reactance as it may be shown: 0 when |X| < 1e-9 · max(|Z0|, R), which is below what the
+ * computation resolves (at an exact quarter wave X is Z0 times the cosine of a rounded π/2, about
+ * 6e-17 · Z0, not a value); otherwise X itself. For display only: results keep the computed X.
+ */
+export function shownReactance(reactance: number, z0: number, resistance: number): number {
+  return Number.isFinite(reactance) && Math.abs(reactance) < REACTANCE_RESOLUTION * Math.max(Math.abs(z0), Math.abs(resistance)) ? 0 : reactance;
 }
