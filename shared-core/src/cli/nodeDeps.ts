@@ -2,7 +2,7 @@
 import { isAbsolute, relative, resolve, sep } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import type { CliDeps } from './run.js';
-import { readSheetFile, writeFileAtomic } from './nodeFiles.js';
+import { readSheetFile, sameFile, writeFileAtomic } from './nodeFiles.js';
 import { STUBWRIGHT_VERSION } from './version.js';
 
 /**
@@ -28,6 +28,7 @@ export function nodeDeps(cwd: string): Omit<CliDeps, 'evaluate'> {
   return {
     readSheet: (file) => readSheetFile(resolve(cwd, file)),
     writeFileAtomic: (file, content) => writeFileAtomic(resolve(cwd, file), content),
+    sameFile: (a, b) => sameFile(resolve(cwd, a), resolve(cwd, b)),
     stdout: (text) => void process.stdout.write(text),
     stderr: (text) => void process.stderr.write(text),
     artifactUri: (file) => artifactUri(file, cwd),

@@ -22,6 +22,8 @@ export interface CliDeps {
   readSheet(file: string): Promise<DecodeResult>;
   /** Writes `content` to `file` atomically; throws an Error with a readable message on failure. */
   writeFileAtomic(file: string, content: string): Promise<void>;
+  /** Whether two paths name the same existing file (default: the same artifact URI). */
+  sameFile?(a: string, b: string): Promise<boolean>;
   stdout(text: string): void;
   stderr(text: string): void;
   /** SARIF artifact URI of a file as given (relative to `srcRoot`, `/`-separated, percent-encoded). */
@@ -105,6 +107,13 @@ function checkReport(cmd: Extract<CliCommand, { kind: 'check' }>, done: Evaluate
   return `${JSON.stringify(sarif, null, 2)}\n`;
 }
 
+/** The input sheet that `output` would overwrite, if any. */
+async function inputAt(output: string, files: readonly string[], deps: CliDeps): Promise<string | undefined> {
+  const same = deps.sameFile ?? (async (a: string, b: string) => deps.artifactUri(a) === deps.artifactUri(b));
+  for (const file of files) if (await same(output, file)) return file;
+  return undefined;
+}
+
 /** Runs `stubwright` with `argv` (without `node` and the script) and returns the exit code. Never throws. */
 export async function runCli(argv: readonly string[], deps: CliDeps): Promise<number> {
   const parsed = parseArgs(argv);
@@ -121,6 +130,13 @@ export async function runCli(argv: readonly string[], deps: CliDeps): Promise<nu
   if (cmd.kind === 'version') {
     deps.stdout(`${deps.version}\n`);
     return EXIT.ok;
+  }
+  if (cmd.kind === 'check' && cmd.output !== undefined) {
+    const clash = await inputAt(cmd.output, cmd.files, deps);
+    if (clash !== undefined) {
+      deps.stderr(`stubwright: --output ${cmd.output} is the sheet ${clash}: refusing to overwrite it with a report\n`);
+      return EXIT.usage;
+    }
   }
   const { done, failed } = await evaluateFiles(cmd, deps);
   if (cmd.kind === 'eval') {

@@ -17,6 +17,13 @@ import type { Value } from './expr/index.js';
 
 export const DEFAULT_MARGIN_PCT = 10;
 
+/**
+ * Longest sheet evaluated, in UTF-16 code units (1 Mi, the command line's byte limit). A design
+ * note is kilobytes; a megabyte of declarations already takes seconds, so a larger text (a stray
+ * log or data file opened in the editor) gets one `limit` diagnostic instead of stalling the server.
+ */
+export const MAX_SHEET_LENGTH = 1024 * 1024;
+
 interface CachedOutcome {
   outcome: Outcome;
   stamp: number;
@@ -66,6 +73,7 @@ function newCache(math?: SafeMath): Cache {
 export function evaluateSheet(text: string, previous?: SheetResult, options: SheetOptions = {}): SheetResult {
   const marginPct = options.marginPct ?? DEFAULT_MARGIN_PCT;
   const cache = (previous?.cache as Cache | undefined) ?? newCache(options.math);
+  if (text.length > MAX_SHEET_LENGTH) return tooLong(text, cache);
   const lines = text.split(LINE_BREAK);
   const diagnostics: SheetDiagnostic[] = [];
   const at = (line: number, d: LocalDiagnostic) => diagnostics.push(toSheetDiagnostic(line, clampToLine(d, lines[line]!.length), declRange));
@@ -207,6 +215,16 @@ export function evaluateSheet(text: string, previous?: SheetResult, options: She
   entries.sort((a, b) => a.line - b.line);
   diagnostics.sort((a, b) => a.range.start.line - b.range.start.line || a.range.start.character - b.range.start.character);
   return { entries, diagnostics, symbols, stats, cache };
+}
+
+/** The result for a text over MAX_SHEET_LENGTH: nothing evaluated, one diagnostic on the first line. */
+function tooLong(text: string, cache: Cache): SheetResult {
+  const first = LINE_BREAK.exec(text)?.index ?? text.length;
+  const diagnostic: SheetDiagnostic = {
+    range: rangeOf(0, 0, Math.min(first, 1)), severity: 'error', code: 'limit',
+    message: `sheet longer than ${MAX_SHEET_LENGTH} characters (${text.length}): nothing was evaluated; split it into smaller sheets`,
+  };
+  return { entries: [], diagnostics: [diagnostic], symbols: new Map(), stats: { evaluated: 0, reused: 0 }, cache };
 }
 
 /**
