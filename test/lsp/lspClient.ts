@@ -111,11 +111,13 @@ export interface LspClient {
 export interface StartOptions {
   capabilities?: ClientCapabilities;
   settings?: Record<string, unknown>;
+  /** Node options placed before the bundle (e.g. the permission model's flags). */
+  nodeArgs?: string[];
 }
 
 /** Spawns the bundled server and completes initialize/initialized. */
 export async function startClient(options: StartOptions = {}): Promise<LspClient> {
-  const child = spawn(process.execPath, [SERVER_BUNDLE, '--stdio'], { stdio: ['pipe', 'pipe', 'pipe'] });
+  const child = spawn(process.execPath, [...(options.nodeArgs ?? []), SERVER_BUNDLE, '--stdio'], { stdio: ['pipe', 'pipe', 'pipe'] });
   let stderr = '';
   child.stderr!.setEncoding('utf8').on('data', (s: string) => (stderr += s));
   const exited = new Promise<number | null>((resolve) => child.on('exit', (code) => resolve(code)));

@@ -2,7 +2,8 @@
  * Diagnostics, pulled or pushed as the client prefers (chosen at `initialize`).
  *
  * Pull: `textDocument/diagnostic` answers a full report with a result id made of the open
- * document's serial, its version and the settings generation, or `unchanged` when the client
+ * document's serial, the number of changes it has seen (not the client's version, which a faulty
+ * client may repeat) and the settings generation, or `unchanged` when the client
  * already holds that id. Push: `publishDiagnostics` debounced per document and tagged with the
  * version it was computed for; a result whose document moved on meanwhile is dropped, never sent.
  */
@@ -17,10 +18,13 @@ export type RefreshDiagnostics = () => void;
 export function registerDiagnostics(ctx: ServerContext): RefreshDiagnostics {
   const { connection, documents, service, settings } = ctx;
   const serials = new Map<string, number>();
+  // Changes seen per document: the client's version numbers are not trusted to increase.
+  const changes = new Map<string, number>();
   let nextSerial = 1;
   documents.open.onDidOpen((e) => serials.set(e.document.uri, nextSerial++));
+  documents.open.onDidChangeContent((e) => changes.set(e.document.uri, (changes.get(e.document.uri) ?? 0) + 1));
 
-  const resultId = (uri: string, version: number, generation: number) => `${serials.get(uri) ?? 0}.${version}.${generation}`;
+  const resultId = (uri: string, generation: number) => `${serials.get(uri) ?? 0}.${changes.get(uri) ?? 0}.${generation}`;
   const empty: DocumentDiagnosticReport = { kind: DocumentDiagnosticReportKind.Full, items: [] };
 
   connection.languages.diagnostics.on((params, token) =>
@@ -29,13 +33,13 @@ export function registerDiagnostics(ctx: ServerContext): RefreshDiagnostics {
       const open = documents.open.get(uri);
       if (!open) return empty;
       const generation = settings.generation;
-      const current = resultId(uri, open.version, generation);
+      const current = resultId(uri, generation);
       if (params.previousResultId === current) return { kind: DocumentDiagnosticReportKind.Unchanged, resultId: current };
       const ev = await documents.evaluated(uri);
       if (!ev) return empty;
       return {
         kind: DocumentDiagnosticReportKind.Full,
-        resultId: resultId(uri, ev.text.version, generation),
+        resultId: resultId(uri, generation),
         items: service.getDiagnostics(ev.doc).map((d) => toDiagnostic(d, uri)),
       };
     }, 'textDocument/diagnostic'),
@@ -62,6 +66,7 @@ export function registerDiagnostics(ctx: ServerContext): RefreshDiagnostics {
   documents.open.onDidChangeContent((e) => schedule(e.document.uri));
   documents.open.onDidClose((e) => {
     serials.delete(e.document.uri);
+    changes.delete(e.document.uri);
     const pending = timers.get(e.document.uri);
     if (pending !== undefined) ctx.timers.clearTimeout(pending);
     timers.delete(e.document.uri);

@@ -2,8 +2,7 @@
  * Entry point of the `stubwright` command (bundled to `shared-core/dist/cli.js`). Thin: wires Node
  * I/O and the evaluator into `runCli` and sets the exit code; all behaviour lives in `run.ts`.
  */
-import { evaluateSheet } from '../sheet/evaluate.js';
-import type { SheetOptions } from '../sheet/types.js';
+import { sharedEvaluator } from './evaluator.js';
 import { nodeDeps } from './nodeDeps.js';
 import { runCli } from './run.js';
 
@@ -12,7 +11,7 @@ for (const stream of [process.stdout, process.stderr]) {
   stream.on('error', (e: NodeJS.ErrnoException) => process.exit(e.code === 'EPIPE' ? (process.exitCode ?? 0) : 2));
 }
 
-const evaluate = (text: string, options: SheetOptions) => evaluateSheet(text, undefined, options);
+const evaluate = sharedEvaluator();
 
 runCli(process.argv.slice(2), { ...nodeDeps(process.cwd()), evaluate }).then(
   (code) => {

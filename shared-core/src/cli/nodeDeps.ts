@@ -1,9 +1,8 @@
 /** The real, Node-backed `CliDeps` (everything except the evaluator, which `main.ts` supplies). */
-import { stat } from 'node:fs/promises';
 import { isAbsolute, relative, resolve, sep } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import type { CliDeps } from './run.js';
-import { readSheetFile, writeFileAtomic } from './nodeFiles.js';
+import { readSheetFile, sameFile, writeFileAtomic } from './nodeFiles.js';
 import { STUBWRIGHT_VERSION } from './version.js';
 
 /**
@@ -24,27 +23,16 @@ export function directoryUri(dir: string): string {
   return href.endsWith('/') ? href : `${href}/`;
 }
 
-/** True when two absolute paths are one file: equal paths, or (both existing) the same device and inode. */
-export async function sameFile(a: string, b: string): Promise<boolean> {
-  if (a === b) return true;
-  try {
-    const [x, y] = await Promise.all([stat(a), stat(b)]);
-    return x.dev === y.dev && x.ino === y.ino;
-  } catch {
-    return false;
-  }
-}
-
 /** Node implementations of the command line's I/O, relative to `cwd`. */
 export function nodeDeps(cwd: string): Omit<CliDeps, 'evaluate'> {
   return {
     readSheet: (file) => readSheetFile(resolve(cwd, file)),
     writeFileAtomic: (file, content) => writeFileAtomic(resolve(cwd, file), content),
+    sameFile: (a, b) => sameFile(resolve(cwd, a), resolve(cwd, b)),
     stdout: (text) => void process.stdout.write(text),
     stderr: (text) => void process.stderr.write(text),
     artifactUri: (file) => artifactUri(file, cwd),
     srcRoot: directoryUri(cwd),
     version: STUBWRIGHT_VERSION,
-    sameFile: (a, b) => sameFile(resolve(cwd, a), resolve(cwd, b)),
   };
 }

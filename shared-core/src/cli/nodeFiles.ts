@@ -67,6 +67,17 @@ export async function readSheetFile(file: string, maxBytes = MAX_SHEET_BYTES): P
   }
 }
 
+/** Whether two paths name the same file (links followed); when either does not exist, whether the paths are equal. */
+export async function sameFile(a: string, b: string): Promise<boolean> {
+  if (resolve(a) === resolve(b)) return true;
+  try {
+    const [x, y] = await Promise.all([stat(a), stat(b)]);
+    return x.dev === y.dev && x.ino === y.ino;
+  } catch {
+    return resolve(a) === resolve(b);
+  }
+}
+
 /**
  * Writes `content` (UTF-8) to `file` atomically: a temporary file in the same directory, flushed,
  * then renamed over the target, so readers see the old report or the new one, never a partial one.

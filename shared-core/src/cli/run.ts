@@ -35,7 +35,8 @@ export interface CliDeps {
   version: string;
   /**
    * True when two paths name the same file (after resolving, and following links where both
-   * exist); `export` and `plot` refuse to write over their input sheet. Default: the same string.
+   * exist): `check --output`, `export` and `plot` refuse to write over a sheet they read.
+   * Default: the same string (artifact URI for `check`).
    */
   sameFile?(a: string, b: string): Promise<boolean>;
 }
@@ -114,6 +115,13 @@ function checkReport(cmd: Extract<CliCommand, { kind: 'check' }>, done: Evaluate
   return `${JSON.stringify(sarif, null, 2)}\n`;
 }
 
+/** The input sheet that `output` would overwrite, if any. */
+async function inputAt(output: string, files: readonly string[], deps: CliDeps): Promise<string | undefined> {
+  const same = deps.sameFile ?? (async (a: string, b: string) => deps.artifactUri(a) === deps.artifactUri(b));
+  for (const file of files) if (await same(output, file)) return file;
+  return undefined;
+}
+
 /** Runs `stubwright` with `argv` (without `node` and the script) and returns the exit code. Never throws. */
 export async function runCli(argv: readonly string[], deps: CliDeps): Promise<number> {
   const parsed = parseArgs(argv);
@@ -132,6 +140,13 @@ export async function runCli(argv: readonly string[], deps: CliDeps): Promise<nu
     return EXIT.ok;
   }
   if (cmd.kind === 'export' || cmd.kind === 'plot') return runSweepCommand(cmd, deps);
+  if (cmd.kind === 'check' && cmd.output !== undefined) {
+    const clash = await inputAt(cmd.output, cmd.files, deps);
+    if (clash !== undefined) {
+      deps.stderr(`stubwright: --output ${cmd.output} is the sheet ${clash}: refusing to overwrite it with a report\n`);
+      return EXIT.usage;
+    }
+  }
   const { done, failed } = await evaluateFiles(cmd, deps);
   if (cmd.kind === 'eval') {
     const single = cmd.files.length === 1;

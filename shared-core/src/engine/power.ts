@@ -116,15 +116,20 @@ export function stubStress(input: StubStressInput): StubStress {
   const atEnd = wave(dEnd);
   // Standing-wave maxima sit where the reflection Γ(d) = Γ_L·e^(−2γd) is real: positive for |V|,
   // negative for |I| (exact on a lossless line; on a lossy one the envelope moves them by O((α/β)²)).
+  // There, |V| = |V⁺|·(e^(αd) + |Γ_L|·e^(−αd)) (and |I| alike), which never falls with d because
+  // |Γ_L| ≤ 1 for a passive end: the last maximum before the junction is the largest. Only the first
+  // and the last are evaluated, so a stub thousands of wavelengths long costs no more than a short one.
   const argGamma = open ? 0 : Math.atan2(2 * zl.im * z0, cabs(zl) ** 2 - z0 * z0);
   const beta = phaseConstant(line.epsEff, f);
   let maxV = Math.max(vj, peak(atEnd.v));
   let maxI = Math.max(peak(atJunction.i), peak(atEnd.i));
   for (const [offset, isVoltage] of [[0, true], [Math.PI, false]] as const) {
     const first = Math.ceil((2 * beta * dEnd - argGamma - offset) / (2 * Math.PI));
-    for (let m = first; ; m++) {
+    const last = Math.floor((2 * beta * dJunction - argGamma - offset) / (2 * Math.PI));
+    // (last − 1 as well, in case rounding put `last` a hair past the junction)
+    for (const m of new Set([first, last - 1, last].filter((k) => k >= first))) {
       const d = (argGamma + offset + 2 * Math.PI * m) / (2 * beta);
-      if (d > dJunction) break;
+      if (d > dJunction) continue;
       const w = wave(d);
       if (isVoltage) maxV = Math.max(maxV, peak(w.v));
       else maxI = Math.max(maxI, peak(w.i));

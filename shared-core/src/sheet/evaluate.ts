@@ -28,6 +28,13 @@ import type { Value } from './expr/index.js';
 
 export const DEFAULT_MARGIN_PCT = 10;
 
+/**
+ * Longest sheet evaluated, in UTF-16 code units (1 Mi, the command line's byte limit). A design
+ * note is kilobytes; a megabyte of declarations already takes seconds, so a larger text (a stray
+ * log or data file opened in the editor) gets one `limit` diagnostic instead of stalling the server.
+ */
+export const MAX_SHEET_LENGTH = 1024 * 1024;
+
 interface CachedOutcome {
   outcome: Outcome;
   /** Its key in Cache.outcomes (declaration text, plus the margin for stubs and sweeps). */
@@ -111,6 +118,7 @@ function newCache(math?: SafeMath): Cache {
 export function evaluateSheet(text: string, previous?: SheetResult, options: SheetOptions = {}): SheetResult {
   const marginPct = options.marginPct ?? DEFAULT_MARGIN_PCT;
   const cache = (previous?.cache as Cache | undefined) ?? newCache(options.math);
+  if (text.length > MAX_SHEET_LENGTH) return tooLong(text, cache);
   const lines = text.split(LINE_BREAK);
   const last = cache.last;
   if (last && last.owner === previous && last.marginPct === marginPct) {
@@ -450,6 +458,16 @@ function evaluateLineEdit(cache: Cache, st: SheetState, lines: string[]): SheetR
   const result: SheetResult = { entries, diagnostics, symbols, stats, cache, models };
   Object.assign(st, { owner: result, path: 'line-edit', entries, diagnostics, symbols, models });
   return result;
+}
+
+/** The result for a text over MAX_SHEET_LENGTH: nothing evaluated, one diagnostic on the first line. */
+function tooLong(text: string, cache: Cache): SheetResult {
+  const first = LINE_BREAK.exec(text)?.index ?? text.length;
+  const diagnostic: SheetDiagnostic = {
+    range: rangeOf(0, 0, Math.min(first, 1)), severity: 'error', code: 'limit',
+    message: `sheet longer than ${MAX_SHEET_LENGTH} characters (${text.length}): nothing was evaluated; split it into smaller sheets`,
+  };
+  return { entries: [], diagnostics: [diagnostic], symbols: new Map(), stats: { evaluated: 0, reused: 0 }, cache };
 }
 
 /**

@@ -85,11 +85,10 @@ export class ValueReader {
   /** A `let` name written on its own, returned whole (keeps ranges and tolerances). */
   private wholeLet(span: Span): LetValue | undefined {
     if (!/^[A-Za-z_][A-Za-z0-9_]*$/.test(span.text)) return undefined;
+    // Read even when there is no such let (yet): the outcome changes when one appears or is fixed.
+    this.reads.add(span.text);
     const value = this.scope.lets.get(span.text);
-    if (value) {
-      this.reads.add(span.text);
-      this.references.push({ name: span.text, start: span.start, end: span.end });
-    }
+    if (value) this.references.push({ name: span.text, start: span.start, end: span.end });
     return value;
   }
 
