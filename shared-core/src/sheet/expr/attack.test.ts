@@ -26,7 +26,6 @@ describe('attack corpus', () => {
   it.each(CORPUS.map((t) => [t.length > 40 ? `${t.slice(0, 40)}… (${t.length} chars)` : t, t]))(
     '%j yields a located error or a bounded value, never a throw',
     (_label, text) => {
-      const t0 = performance.now();
       const c = compileExpression(text, math);
       let evaluated = false;
       if (c.ok) {
@@ -36,10 +35,10 @@ describe('attack corpus', () => {
       } else {
         expectLocated(c.error, text);
       }
-      expect(performance.now() - t0).toBeLessThan(250);
       // Only plain arithmetic on numbers and bare units may come through.
       if (evaluated) expect(['1e308^1e308', '2^-1e9', 'mm^1e9', 'Ω', '°']).toContain(text);
     },
+    10_000, // a hang guard, not a timing check: each case takes milliseconds (bench and fuzz print figures)
   );
 });
 
