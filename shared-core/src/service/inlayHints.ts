@@ -6,6 +6,7 @@
 import type { Range, SheetEntry } from '../sheet/types.js';
 import { formatQuantity } from '../sheet/format.js';
 import { equivalent, num, shower } from './display.js';
+import { firstEntryAtOrAfter } from './locate.js';
 import type { EvaluatedDocument, InlayHint, ServiceSettings } from './types.js';
 
 /** Margins below this multiple of the configured margin are shown in the hint. */
@@ -60,8 +61,10 @@ export function hintLabel(entry: SheetEntry, settings: ServiceSettings): string 
 export function getInlayHints(doc: EvaluatedDocument, range?: Range): InlayHint[] {
   if (!doc.settings.inlayHints) return [];
   const hints: InlayHint[] = [];
-  for (const entry of doc.result.entries) {
-    if (range && (entry.line < range.start.line || entry.line > range.end.line)) continue;
+  const entries = doc.result.entries;
+  for (let i = range ? firstEntryAtOrAfter(doc, range.start.line) : 0; i < entries.length; i++) {
+    const entry = entries[i]!;
+    if (range && entry.line > range.end.line) break;
     const label = hintLabel(entry, doc.settings);
     if (label) hints.push({ position: entry.range.end, label, tooltip: entry.details.join('\n') });
   }

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { evaluateSheet } from '../sheet/evaluate.js';
+import { contains, entryOnLine, symbolAt } from './locate.js';
 import { applyEdits, example, fixture, lineOf, lineRange, open } from './testUtil.js';
 
 const tour = example('warnings-tour');
@@ -31,6 +32,19 @@ describe('inlay hints', () => {
     const feed = service.getInlayHints(doc).find((h) => h.position.line === lineOf(tour, 'line feed'))!;
     expect(feed.label).toMatch(/mil/);
     expect(open(tour, { inlayHints: false }).service.getInlayHints(open(tour, { inlayHints: false }).doc)).toEqual([]);
+  });
+
+  it('for a range, exactly the hints of the lines inside it (every range of the demo)', () => {
+    const text = example('sensor-node');
+    const { service, doc } = open(text);
+    const all = service.getInlayHints(doc);
+    const n = doc.lines.length;
+    for (let a = 0; a < n; a += 3) {
+      for (let b = a; b < n + 2; b += 5) {
+        const range = { start: { line: a, character: 0 }, end: { line: b, character: 0 } };
+        expect(service.getInlayHints(doc, range)).toEqual(all.filter((h) => h.position.line >= a && h.position.line <= b));
+      }
+    }
   });
 });
 
@@ -182,5 +196,29 @@ describe('document store', () => {
     expect(a).not.toBe(b);
     service.close('u');
     expect(service.get('u')).toBeUndefined();
+  });
+});
+
+describe('locating what sits at a position (binary searches, per-line name lookup)', () => {
+  /** The straightforward scans the indexed lookups replace: every entry, every symbol. */
+  const slowEntry = (doc: ReturnType<typeof open>['doc'], line: number) => doc.result.entries.find((e) => e.line === line);
+  const slowSymbol = (doc: ReturnType<typeof open>['doc'], p: { line: number; character: number }) => {
+    for (const symbol of doc.result.symbols.values()) {
+      if (contains(symbol.declaration, p)) return { symbol, range: symbol.declaration };
+      const ref = symbol.references.find((r) => contains(r, p));
+      if (ref) return { symbol, range: ref };
+    }
+    return undefined;
+  };
+  it('finds exactly what a full scan finds, at every position of every example', () => {
+    for (const text of [example('sensor-node'), example('warnings-tour'), example('trap-sweep'), example('power-check'), node]) {
+      const { doc } = open(text);
+      doc.lines.forEach((line, l) => {
+        expect(entryOnLine(doc, l)).toBe(slowEntry(doc, l));
+        for (let c = 0; c <= line.length + 1; c++) expect(symbolAt(doc, { line: l, character: c })).toEqual(slowSymbol(doc, { line: l, character: c }));
+      });
+      expect(entryOnLine(doc, doc.lines.length + 5)).toBeUndefined();
+      expect(symbolAt(doc, { line: doc.lines.length + 5, character: 0 })).toBeUndefined();
+    }
   });
 });
