@@ -1,18 +1,16 @@
 /**
  * End-to-end tests of the built `stubwright` bundle: `node shared-core/dist/cli.js …` as a child
- * process, on real sheets evaluated by the real evaluator. The bundle is rebuilt here with the same
- * esbuild options as `npm run build:cli` (written to a temporary file, then renamed into place).
+ * process, on real sheets evaluated by the real evaluator. The bundle is rebuilt here
+ * (./safety/cliBundle.ts: the esbuild options of `npm run build:cli`, written to a temporary file,
+ * then renamed into place).
  */
 import { spawnSync } from 'node:child_process';
-import { mkdir, mkdtemp, readdir, readFile, rename, rm, writeFile } from 'node:fs/promises';
+import { mkdir, mkdtemp, readdir, readFile, rm, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { fileURLToPath } from 'node:url';
-import { build } from 'esbuild';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { buildCli, CLI, ROOT } from './safety/cliBundle.js';
 
-const ROOT = fileURLToPath(new URL('..', import.meta.url));
-const CLI = join(ROOT, 'shared-core', 'dist', 'cli.js');
 const VERSION = (JSON.parse(await readFile(join(ROOT, 'package.json'), 'utf8')) as { version: string }).version;
 
 const SHEETS: Record<string, string> = {
@@ -52,18 +50,7 @@ function cli(...args: string[]): Run {
 const listing = async (dir = work): Promise<string[]> => (await readdir(dir)).sort();
 
 beforeAll(async () => {
-  const temp = `${CLI}.${process.pid}.tmp`;
-  await build({
-    entryPoints: [join(ROOT, 'shared-core', 'src', 'cli', 'main.ts')],
-    bundle: true,
-    platform: 'node',
-    target: 'node20',
-    format: 'esm',
-    banner: { js: '#!/usr/bin/env node' },
-    outfile: temp,
-    logLevel: 'warning',
-  });
-  await rename(temp, CLI);
+  await buildCli();
   work = await mkdtemp(join(tmpdir(), 'stubwright-cli-'));
   for (const [name, text] of Object.entries(SHEETS)) await writeFile(join(work, name), text);
   await mkdir(join(work, 'folder.rfsheet'));
