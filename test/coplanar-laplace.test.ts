@@ -206,7 +206,7 @@ describe('conductor-backed CPW (Ghione–Naldi 1983) against the solver', () => 
 
 describe('CPW metal thickness: the slot-wall estimate against a field solution', () => {
   /**
-   * Textbook thickness correction, transcribed here only to document why it is not used (K. C. Gupta,
+   * Textbook thickness correction, copied here only to document why it is not used (K. C. Gupta,
    * R. Garg, I. J. Bahl, P. Bhartia, "Microstrip Lines and Slotlines", 2nd ed., 1996, §7.3, as
    * restated in two independent public implementations; equation numbers not checked):
    * Δ = (1.25t/π)(1 + ln(4πs/t)), ke = (s + Δ)/(s + 2g − Δ),

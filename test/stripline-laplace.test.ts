@@ -43,7 +43,7 @@ function laplaceStripline(wOverB: number, tOverB: number): { z0: number; ownPct:
 
 /**
  * Wheeler's 1978 closed-form thin-strip impedance at his equivalent width w′ in spacing b − t
- * (IEEE Trans. MTT-26, pp. 866–876; transcription checked against two secondary restatements):
+ * (IEEE Trans. MTT-26, pp. 866–876; our copy checked against two secondary restatements):
  * Z0 = (η0/4π)·ln{1 + (4/πm)[(8/πm) + √((8/πm)² + 6.27)]}, m = w′/(b − t). For comparison only.
  */
 function wheelerClosedForm(wOverB: number, tOverB: number): number {
@@ -75,7 +75,7 @@ describe('reference Laplace solver with a thick strip', () => {
 
   it('matches Cohn 1954 (exact, t = 0) from w/b = 0.03 to 30, within its own error estimate', () => {
     // S. B. Cohn, IRE Trans. MTT-2, pp. 52–57, 1954. Both the engine's Cohn (ellipticK.ts) and the test's
-    // independent transcription (reference/exactLines.ts, its own AGM) are compared.
+    // independent implementation (reference/exactLines.ts, its own AGM) are compared.
     for (const u of [0.03, 0.3, 3, 30]) {
       const fd = laplaceStripline(u, 0);
       expect(fd.ownPct).toBeLessThan(0.5);

@@ -11,7 +11,7 @@
  * expressions, Z0(f) = Z0(0)·(R13/R14)^R17, with R1, R2, R6 capped at 20 as the authors advise).
  * Range as restated in later surveys (the original was not available to check):
  * 0.1 ≤ w/h ≤ 10, 1 ≤ εr ≤ 18, h/λ0 ≤ 0.1. R8 is taken as 1 + 1.275·{1 − exp[−0.004625·R3·εr^1.674·
- * (fn/18.365)^2.745]}, the reading shared by independent transcriptions; one restatement puts
+ * (fn/18.365)^2.745]}, the reading shared by independent restatements; one restatement puts
  * the (fn/18.365)^2.745 factor outside the exponential. Not checked against the original.
  *
  * Both take the normalised frequency fn = f·h in GHz·mm and the static εeff from the same

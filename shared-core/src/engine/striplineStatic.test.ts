@@ -33,7 +33,7 @@ describe('striplineStatic, zero thickness (Cohn 1954, exact)', () => {
 
   it('agrees with Wheeler’s closed-form thin-strip formula within his stated 0.5 % for w/b ≤ 10', () => {
     // H. A. Wheeler, IEEE Trans. MTT-26, 1978: Z0 = (η0/4π√εr)·ln{1 + (4/πm)[(8/πm) + √((8/πm)² + 6.27)]},
-    // m = w/b for t = 0 (transcription checked against two secondary restatements; 0.5 % is the
+    // m = w/b for t = 0 (our copy of the formula checked against two secondary restatements; 0.5 % is the
     // accuracy they quote). Observed worst: 0.45 % at w/b = 10, 0.41 % near w/b = 3.
     const wheeler = (m: number) => (eta0 / (4 * Math.PI)) * Math.log(1 + (4 / (Math.PI * m)) * (8 / (Math.PI * m) + Math.sqrt((8 / (Math.PI * m)) ** 2 + 6.27)));
     for (const u of [0.02, 0.05, 0.1, 0.3, 1, 3, 10]) expect(rel(wheeler(u), at(u).z0)).toBeLessThan(0.005);
@@ -56,7 +56,7 @@ describe('striplineStatic, finite thickness (Wheeler 1978 equivalent width)', ()
 
   it('agrees with Cohn’s 1955 wide-strip thick-strip formula for w/(b − t) ≥ 0.5', () => {
     // S. B. Cohn, "Problems in strip transmission lines", IRE Trans. MTT-3, 1955 (from memory; the
-    // formula as restated in an antenna textbook and transcribed in public code): for wide strips
+    // formula as restated in an antenna textbook and copied into public code): for wide strips
     // Z0 = (η0/4√εr)/(w/(b − t) + C′f/ε), C′f/ε = (1/π)[2a·ln(a + 1) − (a − 1)·ln(a² − 1)], a = 1/(1 − t/b),
     // stated within about 1.2 % for w/(b − t) ≥ 0.35 (from memory). Observed here: within 0.33 %.
     const cohnWide = (u: number, x: number) => {

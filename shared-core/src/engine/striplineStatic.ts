@@ -16,7 +16,7 @@
  * Wheeler then approximates the thin-strip impedance in closed form (stated within 0.5 % for
  * w′/(b − t) < 10, as restated in later surveys). Here the thin strip of width w′ in spacing b − t
  * is instead evaluated with Cohn's exact result: this pairing is this project's choice, exact at
- * t = 0 and continuous in t. The Δw expression is transcribed from two independent secondary
+ * t = 0 and continuous in t. The Δw expression is copied from two independent secondary
  * restatements that agree; the paper itself and its equation numbers were not available.
  *
  * Accuracy observed against the 2-D field solver in test/reference/laplace2d.ts (see

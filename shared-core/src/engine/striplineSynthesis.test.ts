@@ -8,7 +8,7 @@ const rel = (a: number, b: number) => Math.abs(a / b - 1);
 describe('stripline synthesis: worked example', () => {
   it('50 Ω with b = 0.32 cm, εr = 2.20 needs W ≈ 0.266 cm', () => {
     // Pozar, Microwave Engineering, 4th ed., Example 3.5 (from memory; the inputs also appear in a
-    // public transcription of the example): W/b = 30π/(√εr·Z0) − 0.441 = 0.830, W = 0.266 cm, from the
+    // public restatement of the example): W/b = 30π/(√εr·Z0) − 0.441 = 0.830, W = 0.266 cm, from the
     // book's approximate eq. 3.181. The exact Cohn result gives W = 0.2653 cm (−0.3 %).
     const r = striplineWidthForZ0({ z0: 50, heightM: 3.2e-3, dk: 2.2 });
     expect(rel(r.widthM, 2.66e-3)).toBeLessThan(0.005);
