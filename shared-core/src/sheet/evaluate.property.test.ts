@@ -176,6 +176,50 @@ describe('the line-edit path (a few lines changed, names and let dependencies ke
     expect(taken / total).toBeGreaterThan(0.5);
   });
 
+  it('lines added or removed where no declaration is: exactly the cold result, without re-evaluating', () => {
+    const lineEdit = fc.record({
+      at: fc.nat(),
+      remove: fc.integer({ min: 0, max: 3 }),
+      add: fc.array(fc.constantFrom('', '# note', '   ', 'let', 'stub ((', '# ±±', 'x = 1', 'line', '\u00a0'), { maxLength: 3 }),
+    });
+    let taken = 0;
+    let total = 0;
+    fc.assert(fc.property(fc.array(lineEdit, { minLength: 1, maxLength: 4 }), (edits) => {
+      let previous = evaluateSheet(BASE, undefined, { math });
+      let current = lines;
+      for (const e of edits) {
+        const at = e.at % (current.length + 1);
+        current = [...current.slice(0, at), ...e.add, ...current.slice(at + e.remove)];
+        const text = current.join('\n');
+        const warm = evaluateSheet(text, previous, { math });
+        total++;
+        if (evaluationPath(warm) === 'line-edit') {
+          taken++;
+          expect(warm.stats.evaluated).toBe(0);
+        }
+        expect(observable(warm)).toEqual(observable(evaluateSheet(text, undefined, { math })));
+        previous = warm;
+      }
+    }), runs(0.3));
+    expect(taken).toBeGreaterThan(0);
+    expect(taken / total).toBeGreaterThan(0.2);
+  });
+
+  it('an Enter at the end of a line, then typing a comment there, never takes the full path', () => {
+    let previous = evaluateSheet(BASE, undefined, { math });
+    let current = [...lines];
+    const at = lines.findIndex((l) => l.startsWith('stub tune')) + 1;
+    for (const text of ['', '#', '# n', '# no', '# note']) {
+      if (text === '') current.splice(at, 0, '');
+      else current[at] = text;
+      const warm = evaluateSheet(current.join('\n'), previous, { math });
+      expect(evaluationPath(warm), JSON.stringify(text)).toBe('line-edit');
+      expect(warm.stats.evaluated).toBe(0);
+      previous = warm;
+    }
+    expect(observable(previous)).toEqual(observable(evaluateSheet(current.join('\n'), undefined, { math })));
+  });
+
   it('propagates through readers: a let, a substrate, a line and a stub edit re-evaluate exactly what reads them', () => {
     const edit = (from: string, to: string) => {
       const text = BASE.replace(from, to);

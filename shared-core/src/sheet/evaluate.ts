@@ -336,7 +336,7 @@ function evaluateFull(cache: Cache, lines: string[], marginPct: number): SheetRe
  */
 function evaluateLineEdit(cache: Cache, st: SheetState, lines: string[]): SheetResult | undefined {
   const old = st.lines;
-  if (lines.length !== old.length) return undefined;
+  if (lines.length !== old.length) return shiftLines(cache, st, lines);
   const changed: number[] = [];
   for (let i = 0; i < lines.length; i++) {
     if (lines[i] !== old[i] && changed.push(i) > MAX_EDITED_LINES) return undefined;
@@ -468,6 +468,82 @@ function tooLong(text: string, cache: Cache): SheetResult {
     message: `sheet longer than ${MAX_SHEET_LENGTH} characters (${text.length}): nothing was evaluated; split it into smaller sheets`,
   };
   return { entries: [], diagnostics: [diagnostic], symbols: new Map(), stats: { evaluated: 0, reused: 0 }, cache };
+}
+
+/**
+ * The line-edit path for lines added or removed where no declaration is (Enter at the end of a
+ * line, a new comment, a deleted blank line): nothing is re-evaluated; everything below the edit
+ * moves by the number of lines added. Undefined (nothing changed) when a declaration is in the
+ * edited block or a duplicate-name message would have to quote a moved line number.
+ */
+function shiftLines(cache: Cache, st: SheetState, lines: string[]): SheetResult | undefined {
+  const old = st.lines;
+  const common = Math.min(old.length, lines.length);
+  let head = 0;
+  while (head < common && lines[head] === old[head]) head++;
+  let tail = 0;
+  while (tail < common - head && lines[lines.length - 1 - tail] === old[old.length - 1 - tail]) tail++;
+  const oldEnd = old.length - tail;
+  const newEnd = lines.length - tail;
+  if (oldEnd - head > MAX_EDITED_LINES || newEnd - head > MAX_EDITED_LINES) return undefined;
+  const parsedAt = (text: string) => cache.parsed.get(text) ?? parseEntry(text);
+  for (let i = head; i < oldEnd; i++) if (parsedAt(old[i]!).parsed.declaration) return undefined;
+  const added: ParsedEntry[] = [];
+  for (let i = head; i < newEnd; i++) {
+    const entry = parsedAt(lines[i]!);
+    if (entry.parsed.declaration) return undefined;
+    added.push(entry);
+  }
+  // A duplicate's message quotes the line of the first declaration: that must not move.
+  if (st.diagnostics.some((d) => d.code === 'duplicate-name' && d.related?.some((r) => r.range.start.line >= oldEnd))) return undefined;
+
+  // Commit.
+  const delta = newEnd - oldEnd;
+  const moved = (line: number) => (line >= oldEnd ? line + delta : line);
+  const movedRange = (r: Range): Range => (r.start.line >= oldEnd ? rangeOf(r.start.line + delta, r.start.character, r.end.character) : r);
+  for (let i = head; i < oldEnd; i++) cache.parsed.delete(old[i]!);
+  added.forEach((entry, k) => cache.parsed.set(lines[head + k]!, entry));
+  st.lines = lines;
+  for (const d of st.byName.values()) d.line = moved(d.line);
+
+  const entries = st.entries.map((e) => {
+    if (e.line < oldEnd) return e;
+    const d = st.byName.get(e.name)!;
+    const cached = st.entriesOf.get(e.name);
+    return cached ? viewOf(d, cached) : { ...e, line: d.line, nameRange: movedRange(e.nameRange), range: movedRange(e.range), synthesized: e.synthesized.map((x) => ({ ...x, range: movedRange(x.range) })) };
+  });
+  const diagnostics: SheetDiagnostic[] = [];
+  for (const d of st.diagnostics) {
+    const line = d.range.start.line;
+    if (line >= head && line < oldEnd) continue; // a parse error of a removed or rewritten line
+    const related = d.related?.some((r) => r.range.start.line >= oldEnd);
+    if (line < oldEnd && !related) {
+      diagnostics.push(d);
+      continue;
+    }
+    const out: SheetDiagnostic = { ...d, range: movedRange(d.range) };
+    if (d.related) out.related = d.related.map((r) => ({ ...r, range: movedRange(r.range) }));
+    diagnostics.push(out);
+  }
+  const declRange = (name: string) => {
+    const d = st.byName.get(name);
+    return d ? rangeOf(d.line, d.decl.name.start, d.decl.name.end) : undefined;
+  };
+  added.forEach((entry, k) => {
+    for (const e of entry.parsed.errors) diagnostics.push(toSheetDiagnostic(head + k, clampToLine(e, lines[head + k]!.length), declRange));
+  });
+  diagnostics.sort(byPosition);
+  const symbols = new Map<string, SheetSymbol>();
+  for (const [name, symbol] of st.symbols) {
+    const last = symbol.references.length > 0 ? symbol.references[symbol.references.length - 1]!.start.line : -1;
+    symbols.set(name, symbol.declaration.start.line < oldEnd && last < oldEnd
+      ? symbol
+      : { ...symbol, declaration: movedRange(symbol.declaration), references: symbol.references.map(movedRange) });
+  }
+
+  const result: SheetResult = { entries, diagnostics, symbols, stats: { evaluated: 0, reused: st.outcomes.size }, cache, models: st.models };
+  Object.assign(st, { owner: result, path: 'line-edit', entries, diagnostics, symbols });
+  return result;
 }
 
 /**
