@@ -6,11 +6,13 @@
 import type { CodeAction } from 'vscode-languageserver';
 import type { ServerContext } from '../context.js';
 import { matchDiagnostics, toCodeAction } from '../convert.js';
+import { checkParams } from '../params.js';
 
 /** Installs the code-action handler. */
 export function registerCodeActions(ctx: ServerContext): void {
   ctx.connection.onCodeAction((params, token) =>
     ctx.runSafe(token, [], async (): Promise<CodeAction[]> => {
+      checkParams(params, { range: true, context: 'diagnostics' });
       const uri = params.textDocument.uri;
       const ev = await ctx.documents.evaluated(uri);
       if (!ev) return [];

@@ -2,11 +2,13 @@
 import type { CompletionItem } from 'vscode-languageserver';
 import type { ServerContext } from '../context.js';
 import { clampPosition, toCompletionItem } from '../convert.js';
+import { checkParams } from '../params.js';
 
 /** Installs the completion handler. */
 export function registerCompletion(ctx: ServerContext): void {
   ctx.connection.onCompletion((params, token) =>
     ctx.runSafe(token, [], async (): Promise<CompletionItem[]> => {
+      checkParams(params, { position: true });
       const ev = await ctx.documents.evaluated(params.textDocument.uri);
       if (!ev) return [];
       return ctx.service

@@ -10,6 +10,7 @@
 import { DocumentDiagnosticReportKind, type DocumentDiagnosticReport } from 'vscode-languageserver';
 import type { ServerContext } from '../context.js';
 import { toDiagnostic } from '../convert.js';
+import { checkParams } from '../params.js';
 
 /** Re-publishes (push) or asks the client to re-pull (pull) every open document's diagnostics. */
 export type RefreshDiagnostics = () => void;
@@ -29,6 +30,7 @@ export function registerDiagnostics(ctx: ServerContext): RefreshDiagnostics {
 
   connection.languages.diagnostics.on((params, token) =>
     ctx.runSafe(token, empty, async (): Promise<DocumentDiagnosticReport> => {
+      checkParams(params);
       const uri = params.textDocument.uri;
       const open = documents.open.get(uri);
       if (!open) return empty;

@@ -5,11 +5,13 @@
 import { LSPErrorCodes, ResponseError, type PrepareRenameResult, type WorkspaceEdit } from 'vscode-languageserver';
 import type { ServerContext } from '../context.js';
 import { clampPosition, toWorkspaceEdit } from '../convert.js';
+import { checkParams } from '../params.js';
 
 /** Installs the rename handlers. */
 export function registerRename(ctx: ServerContext): void {
   ctx.connection.onPrepareRename((params, token) =>
     ctx.runSafe(token, null, async (): Promise<PrepareRenameResult | null> => {
+      checkParams(params, { position: true });
       const ev = await ctx.documents.evaluated(params.textDocument.uri);
       if (!ev) return null;
       return ctx.service.prepareRename(ev.doc, clampPosition(ev.text, params.position));
@@ -17,6 +19,7 @@ export function registerRename(ctx: ServerContext): void {
   );
   ctx.connection.onRenameRequest((params, token) =>
     ctx.runSafe(token, null, async (): Promise<WorkspaceEdit | null> => {
+      checkParams(params, { position: true, newName: true });
       const uri = params.textDocument.uri;
       const ev = await ctx.documents.evaluated(uri);
       if (!ev) return null;
