@@ -220,6 +220,16 @@ describe('the line-edit path (a few lines changed, names and let dependencies ke
     expect(observable(previous)).toEqual(observable(evaluateSheet(current.join('\n'), undefined, { math })));
   });
 
+  it('a let naming a stub that reads the let: the edit ends, each declaration redone at most once, and equals cold', () => {
+    // Each reads the other; on the full path the let sees the stub's name before stubs are evaluated.
+    const text = 'line l: ideal, z0 50 ohm\nlet x = s1\nstub s1: open on l, length x, at 1 GHz\nlet y = x';
+    const edited = text.replace('at 1 GHz', 'at 2 GHz');
+    const warm = evaluateSheet(edited, evaluateSheet(text, undefined, { math }), { math });
+    expect(evaluationPath(warm)).toBe('line-edit');
+    expect(warm.stats.evaluated).toBe(1);
+    expect(observable(warm)).toEqual(observable(evaluateSheet(edited, undefined, { math })));
+  });
+
   it('propagates through readers: a let, a substrate, a line and a stub edit re-evaluate exactly what reads them', () => {
     const edit = (from: string, to: string) => {
       const text = BASE.replace(from, to);

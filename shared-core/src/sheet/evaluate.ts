@@ -71,7 +71,8 @@ interface SheetState {
   stamps: Map<string, number>;
   outcomes: Map<string, Outcome>;
   entriesOf: Map<string, CachedOutcome>;
-  /** Position of each let in evaluation (dependency) order. */
+  /** The lets in evaluation (dependency) order, and each one's position in it. */
+  letOrder: string[];
   letRank: Map<string, number>;
   cyclic: Set<string>;
   /** For each name, the declarations whose evaluation read it. */
@@ -83,10 +84,12 @@ interface SheetState {
   models: Map<string, EntryModel>;
 }
 
+/** Evaluation order of the kinds: each kind reads only the kinds before it (and lets). */
+const KIND_RANK: Record<EntryKind, number> = { let: 0, substrate: 1, line: 2, stub: 3, sweep: 4 };
+
 /** More changed lines than this in one call take the full path (a paste, a search-and-replace). */
 const MAX_EDITED_LINES = 16;
 
-const KIND_RANK: Record<EntryKind, number> = { let: 0, substrate: 1, line: 2, stub: 3, sweep: 4 };
 
 interface Decl {
   line: number;
@@ -324,7 +327,7 @@ function evaluateFull(cache: Cache, lines: string[], marginPct: number): SheetRe
   const result: SheetResult = { entries, diagnostics, symbols, stats, cache, models };
   cache.last = {
     owner: result, path: 'full', marginPct, lines, byName, kinds, scope, stamps: st.stamps, outcomes: st.outcomes, entriesOf: st.entriesOf,
-    letRank: new Map(order.map((d, i) => [d.decl.name.text, i])), cyclic: new Set(cyclic.keys()), readers,
+    letOrder: order.map((d) => d.decl.name.text), letRank: new Map(order.map((d, i) => [d.decl.name.text, i])), cyclic: new Set(cyclic.keys()), readers,
     entries, entryIndex, diagnostics, symbols, models,
   };
   return result;
@@ -383,19 +386,32 @@ function evaluateLineEdit(cache: Cache, st: SheetState, lines: string[]): SheetR
   const redone = new Set<string>();
   /** References of each redone declaration before this call (its line's symbol references change with them). */
   const oldReferences = new Map<string, Outcome['references']>();
-  const rank = (n: string) => KIND_RANK[st.kinds.get(n)!] * 1e9 + (st.letRank.get(n) ?? 0);
-  while (pending.size > 0) {
-    let next = '';
-    for (const n of pending) if (next === '' || rank(n) < rank(next)) next = n;
+  const redo = (next: string) => {
     pending.delete(next);
     const before = st.entriesOf.get(next)!;
     const after = run(st.byName.get(next)!);
     redone.add(next);
     if (!oldReferences.has(next)) oldReferences.set(next, before.outcome.references);
-    if (after === before) continue;
+    if (after === before) return;
     for (const r of before.outcome.reads) st.readers.get(r)?.delete(next);
     for (const r of after.outcome.reads) addReader(st.readers, r, next);
-    for (const reader of st.readers.get(next) ?? []) if (st.entriesOf.has(reader)) pending.add(reader);
+    for (const reader of st.readers.get(next) ?? []) if (st.entriesOf.has(reader) && later(reader, next)) pending.add(reader);
+  };
+  // Only readers later in evaluation order are redone. A reader earlier in it (a let naming a stub,
+  // a line naming a stub) saw, on the full path, a name not evaluated yet, and what it says depends
+  // on that name's kind alone, which an edit here never changes; redoing it could loop forever.
+  const later = (reader: string, read: string) => {
+    const a = KIND_RANK[st.kinds.get(reader)!];
+    const b = KIND_RANK[st.kinds.get(read)!];
+    return a > b || (a === 0 && b === 0 && st.letRank.get(reader)! > st.letRank.get(read)!);
+  };
+  // In evaluation order, in linear time: the lets by one forward pass over their dependency order,
+  // then each later kind (a Set's iteration also visits what is added to it meanwhile).
+  let first = st.letOrder.length;
+  for (const n of pending) if (st.kinds.get(n) === 'let') first = Math.min(first, st.letRank.get(n)!);
+  for (let i = first; i < st.letOrder.length; i++) if (pending.has(st.letOrder[i]!)) redo(st.letOrder[i]!);
+  for (const kind of ['substrate', 'line', 'stub', 'sweep'] as const) {
+    for (const n of pending) if (st.kinds.get(n) === kind) redo(n);
   }
 
   // The edited declarations' old texts are no longer in the sheet: drop their cached outcomes.
